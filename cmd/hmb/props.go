@@ -1,0 +1,260 @@
+package main
+
+import (
+	"encoding/json"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"hmb/thermo/if97"
+	"hmb/thermo/units"
+)
+
+// propInput is one NAME=VALUE argument of hmb props, converted to SI.
+type propInput struct {
+	name string
+	si   float64
+	unit units.Unit
+}
+
+var propDims = map[string]units.Dim{
+	"p": units.Pressure, "T": units.Temperature, "h": units.SpecificEnergy,
+	"s": units.SpecificEntropy, "x": units.Dimensionless,
+}
+
+func runProps(args []string, stdout io.Writer) error {
+	fs := flag.NewFlagSet("props", flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	si := fs.Bool("si", false, "show SI units")
+	us := fs.Bool("us", false, "show US customary units")
+	asJSON := fs.Bool("json", false, "print one JSON object in SI base units")
+	atmArg := fs.String("atm", "", "site atmosphere for gauge pressures, e.g. 12.9psia")
+	elevArg := fs.String("elevation", "", "site elevation for gauge pressures, e.g. 1500m")
+	if err := fs.Parse(args); err != nil {
+		return usageErr("%v", err)
+	}
+	if *si && *us {
+		return usageErr("--si and --us exclude each other")
+	}
+	atm, err := siteAtmosphere(*atmArg, *elevArg)
+	if err != nil {
+		return usageErr("%v", err)
+	}
+	if fs.NArg() != 2 {
+		return usageErr("need exactly two properties, e.g. p=150psig x=1 (got %d)", fs.NArg())
+	}
+	var in [2]propInput
+	for i, a := range fs.Args() {
+		if in[i], err = parsePropArg(a, atm); err != nil {
+			return usageErr("%v", err)
+		}
+	}
+	if in[0].name == in[1].name {
+		return usageErr("%s is given twice", in[0].name)
+	}
+	st, err := stateFrom(in[0], in[1])
+	if err != nil {
+		return usageErr("%v", err)
+	}
+	if *asJSON {
+		return writeStateJSON(stdout, st)
+	}
+	sys := units.SI
+	switch {
+	case *us:
+		sys = units.US
+	case *si:
+	default:
+		sys = inferSystem(in[:])
+	}
+	writeStateTable(stdout, st, sys, atm)
+	return nil
+}
+
+func siteAtmosphere(atmArg, elevArg string) (float64, error) {
+	switch {
+	case atmArg != "" && elevArg != "":
+		return 0, errors.New("--atm and --elevation exclude each other")
+	case atmArg != "":
+		v, u, err := quantity(atmArg, units.Pressure)
+		if err != nil {
+			return 0, fmt.Errorf("--atm: %v", err)
+		}
+		if u.Gauge() {
+			return 0, fmt.Errorf("--atm: the site atmosphere must be an absolute pressure, not %s", u.Symbol())
+		}
+		p := u.ToSI(v, units.StandardAtmosphere)
+		if !(p > 0) {
+			return 0, fmt.Errorf("--atm: %s is not a positive pressure", atmArg)
+		}
+		return p, nil
+	case elevArg != "":
+		v, u, err := quantity(elevArg, units.Length)
+		if err != nil {
+			return 0, fmt.Errorf("--elevation: %v", err)
+		}
+		p, err := units.AtmosphereAt(u.ToSI(v, 0))
+		if err != nil {
+			return 0, fmt.Errorf("--elevation: %v", err)
+		}
+		return p, nil
+	}
+	return units.StandardAtmosphere, nil
+}
+
+// quantity parses "150psig" and checks that its unit has dimension d.
+func quantity(s string, d units.Dim) (float64, units.Unit, error) {
+	v, spelling, err := units.ParseQuantity(s)
+	if err != nil {
+		return 0, units.Unit{}, err
+	}
+	if spelling == "" && d != units.Dimensionless {
+		return 0, units.Unit{}, fmt.Errorf("%q needs a unit of %s, e.g. %s", s, d, units.SI.Default(d).Symbol())
+	}
+	u, err := units.Lookup(spelling)
+	if err != nil {
+		return 0, units.Unit{}, err
+	}
+	if u.Dim() != d && !(d == units.Temperature && u.Dim() == units.TemperatureDiff) {
+		return 0, units.Unit{}, fmt.Errorf("%s is a unit of %s, not of %s", u.Symbol(), u.Dim(), d)
+	}
+	return v, u, nil
+}
+
+func parsePropArg(arg string, atm float64) (propInput, error) {
+	name, val, ok := strings.Cut(arg, "=")
+	if !ok {
+		return propInput{}, fmt.Errorf("%q: expected NAME=VALUE, e.g. p=150psig", arg)
+	}
+	name = strings.TrimSpace(name)
+	if name == "t" {
+		name = "T"
+	}
+	if name == "P" || name == "X" || name == "H" || name == "S" {
+		name = strings.ToLower(name)
+	}
+	d, ok := propDims[name]
+	if !ok {
+		return propInput{}, fmt.Errorf("%q: unknown property %q; use p, T, h, s or x", arg, name)
+	}
+	v, u, err := quantity(strings.TrimSpace(val), d)
+	if err != nil {
+		return propInput{}, fmt.Errorf("%s: %v", name, err)
+	}
+	si := u.ToSI(v, atm)
+	if math.IsNaN(si) || math.IsInf(si, 0) {
+		return propInput{}, fmt.Errorf("%s: %q is not a number", name, val)
+	}
+	if d == units.Pressure && si <= 0 {
+		return propInput{}, fmt.Errorf("p: %s is %s Pa absolute, not a positive pressure", val, units.Format(si, 6))
+	}
+	if d == units.Dimensionless && (si < 0 || si > 1) {
+		return propInput{}, fmt.Errorf("x: quality %s is outside 0..1", val)
+	}
+	return propInput{name: name, si: si, unit: u}, nil
+}
+
+// stateFrom finds the state from two inputs in either order.
+func stateFrom(a, b propInput) (if97.State, error) {
+	order := "pThsx"
+	if strings.Index(order, a.name) > strings.Index(order, b.name) {
+		a, b = b, a
+	}
+	switch a.name + b.name {
+	case "pT":
+		return if97.PT(a.si, b.si)
+	case "ph":
+		return if97.PH(a.si, b.si)
+	case "ps":
+		return if97.PS(a.si, b.si)
+	case "px":
+		return if97.PX(a.si, b.si)
+	case "Tx":
+		return if97.TX(a.si, b.si)
+	case "Th":
+		return if97.TH(a.si, b.si)
+	case "Ts":
+		return if97.TS(a.si, b.si)
+	case "hs":
+		return if97.HS(a.si, b.si)
+	}
+	return if97.State{}, fmt.Errorf("the pair (%s, %s) does not fix a state here; give p or T with one of T, h, s, x, or h with s", a.name, b.name)
+}
+
+// inferSystem shows results in the system the user typed: US when any input unit is US customary.
+func inferSystem(in []propInput) units.System {
+	for _, p := range in {
+		if p.unit.Dim() != units.Dimensionless && units.US.Has(p.unit) {
+			return units.US
+		}
+	}
+	return units.SI
+}
+
+// jsonNum is a number that marshals NaN (undefined, e.g. cp inside the dome) as null.
+type jsonNum float64
+
+func (f jsonNum) MarshalJSON() ([]byte, error) {
+	if math.IsNaN(float64(f)) || math.IsInf(float64(f), 0) {
+		return []byte("null"), nil
+	}
+	return json.Marshal(float64(f))
+}
+
+func writeStateJSON(w io.Writer, st if97.State) error {
+	out := struct {
+		P      jsonNum `json:"p"`
+		T      jsonNum `json:"T"`
+		H      jsonNum `json:"h"`
+		U      jsonNum `json:"u"`
+		S      jsonNum `json:"s"`
+		Cp     jsonNum `json:"cp"`
+		Cv     jsonNum `json:"cv"`
+		V      jsonNum `json:"v"`
+		Rho    jsonNum `json:"rho"`
+		W      jsonNum `json:"w"`
+		X      jsonNum `json:"x"`
+		Phase  string  `json:"phase"`
+		Region int     `json:"region"`
+	}{jsonNum(st.P), jsonNum(st.T), jsonNum(st.H), jsonNum(st.U), jsonNum(st.S), jsonNum(st.Cp),
+		jsonNum(st.Cv), jsonNum(st.V), jsonNum(st.Rho), jsonNum(st.W), jsonNum(st.X), st.Phase.String(), st.Region}
+	b, err := json.Marshal(out)
+	if err != nil {
+		return err
+	}
+	_, err = fmt.Fprintf(w, "%s\n", b)
+	return err
+}
+
+// writeStateTable prints the state as a two-column table in the chosen system.
+func writeStateTable(w io.Writer, st if97.State, sys units.System, atm float64) {
+	row := func(name string, si float64, d units.Dim, note string) {
+		u := sys.Default(d)
+		val := "n/a"
+		if !math.IsNaN(si) {
+			val = units.Format(u.FromSI(si, atm), 6)
+		}
+		fmt.Fprintf(w, "  %-4s %12s %-12s %s\n", name, val, u.Symbol(), note)
+	}
+	fmt.Fprintf(w, "water, %s (IF97 region %d)\n", st.Phase, st.Region)
+	gauge := ""
+	if g := sys.Gauge(); g != (units.Unit{}) {
+		gauge = fmt.Sprintf("(%s %s)", units.Format(g.FromSI(st.P, atm), 6), g.Symbol())
+	}
+	row("p", st.P, units.Pressure, gauge)
+	row("T", st.T, units.Temperature, "")
+	if !math.IsNaN(st.X) {
+		fmt.Fprintf(w, "  %-4s %12s %-12s\n", "x", units.Format(st.X, 6), "")
+	}
+	row("h", st.H, units.SpecificEnergy, "")
+	row("s", st.S, units.SpecificEntropy, "")
+	row("u", st.U, units.SpecificEnergy, "")
+	row("v", st.V, units.SpecificVolume, "")
+	row("rho", st.Rho, units.Density, "")
+	row("cp", st.Cp, units.SpecificEntropy, "")
+	row("cv", st.Cv, units.SpecificEntropy, "")
+	row("w", st.W, units.Velocity, "")
+}

@@ -1,0 +1,140 @@
+package check
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"hmb/lang/ast"
+	"hmb/thermo/units"
+)
+
+// spelling is the unit spelling of q as written, "" for a bare number.
+func spelling(q *ast.Quantity) string {
+	if q.Unit == nil {
+		return ""
+	}
+	return q.Unit.Name
+}
+
+// unitOf looks up q's unit spelling and checks its dimension. what names the quantity in
+// messages ("p", "efficiency of T1"). A temperature difference unit is accepted where allowDiff.
+func (c *checker) unitOf(q *ast.Quantity, want units.Dim, what string, allowDiff bool) (units.Unit, bool) {
+	if math.IsInf(q.Value, 0) {
+		c.errorf(CodeRange, q, "%s is too large a number", q.Raw)
+		return units.Unit{}, false
+	}
+	u, err := units.Lookup(spelling(q))
+	if err != nil {
+		d := c.errorf(CodeUnknownUnit, q.Unit, "unknown unit %s", q.Unit.Name)
+		if ue, ok := err.(*units.UnknownError); ok && ue.Suggestion != "" {
+			d.Message += fmt.Sprintf("; did you mean %s?", ue.Suggestion)
+			d.Fix = ue.Suggestion
+		}
+		return u, false
+	}
+	got := u.Dim()
+	if got == want || allowDiff && want == units.Temperature && got == units.TemperatureDiff {
+		return u, true
+	}
+	if q.Unit == nil {
+		c.errorf(CodeNoUnit, q, "%s %s has no unit: a %s needs one, such as %s", what, q.Raw, want, examples(want))
+		return u, false
+	}
+	if want == units.Dimensionless {
+		c.errorf(CodeDimension, q.Unit, "%s is a plain number (a fraction or %%), not a %s in %s", what, got, q.Unit.Name)
+	} else {
+		c.errorf(CodeDimension, q.Unit, "%s is a %s, but %s is a unit of %s; use, for example, %s", what, want, q.Unit.Name, got, examples(want))
+	}
+	return u, false
+}
+
+// examples names a dimension's usual units in both systems.
+func examples(d units.Dim) string {
+	si, us := units.SI.Default(d).Symbol(), units.US.Default(d).Symbol()
+	if d == units.Pressure {
+		return "bar, kPa, psia or psig"
+	}
+	if si == us {
+		return si
+	}
+	return si + " or " + us
+}
+
+// convert converts q to SI as a value of dimension want (delta: a difference, without offset or
+// atmosphere). ok is false after a report.
+func (c *checker) convert(q *ast.Quantity, want units.Dim, what string, delta bool) (si float64, u units.Unit, ok bool) {
+	u, ok = c.unitOf(q, want, what, false)
+	if !ok {
+		return 0, u, false
+	}
+	if delta {
+		return u.DeltaToSI(q.Value), u, true
+	}
+	return u.ToSI(q.Value, c.m.Atm), u, true
+}
+
+// tolerance converts a stated tolerance on a value of dimension want, given in u, to an absolute SI
+// difference. A percentage is relative to the value as written, except on a plain number (a
+// quality, an efficiency), where it is in points: "x 0.9 ± 2 %" is 0.88..0.92.
+func (c *checker) tolerance(t *ast.Tol, val *ast.Quantity, u units.Unit, want units.Dim, what string) (float64, bool) {
+	a := t.Amount
+	if a.Value < 0 {
+		c.errorf(CodeTolerance, a, "the tolerance of %s is below zero", what)
+		return 0, false
+	}
+	if a.Unit != nil && a.Unit.Name == "%" && want != units.Dimensionless {
+		return u.DeltaToSI(math.Abs(val.Value) * a.Value / 100), true
+	}
+	tu, ok := c.unitOf(a, want, "the tolerance of "+what, true)
+	if !ok {
+		return 0, false
+	}
+	return tu.DeltaToSI(a.Value), true
+}
+
+// fraction checks a quality or efficiency in SI (a fraction).
+func (c *checker) fraction(q *ast.Quantity, v float64, what string, zeroOK bool) bool {
+	if v < 0 || v > 1 || v == 0 && !zeroOK {
+		rng := "between 0 and 1 (0 % and 100 %)"
+		if !zeroOK {
+			rng = "above 0 and at most 1 (100 %)"
+		}
+		c.errorf(CodeFraction, q, "%s %s%s must be %s", what, q.Raw, unitSuffix(q), rng)
+		return false
+	}
+	return true
+}
+
+func unitSuffix(q *ast.Quantity) string {
+	if q.Unit == nil {
+		return ""
+	}
+	if q.Unit.Name == "%" {
+		return " %"
+	}
+	return " " + q.Unit.Name
+}
+
+// entropyRate returns the SI scale (to W/K) of a spelling "<power unit>/K" or "<power unit>/R",
+// the unit of entropy generation, which the units package does not list.
+func entropyRate(spelling string) (float64, bool) {
+	k := strings.LastIndexByte(spelling, '/')
+	if k <= 0 {
+		return 0, false
+	}
+	var per float64
+	switch spelling[k+1:] {
+	case "K":
+		per = 1
+	case "R":
+		per = 5.0 / 9.0 // one rankine is 5/9 kelvin
+	default:
+		return 0, false
+	}
+	u, err := units.Lookup(spelling[:k])
+	if err != nil || u.Dim() != units.Power {
+		return 0, false
+	}
+	return u.DeltaToSI(1) / per, true
+}

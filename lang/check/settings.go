@@ -1,0 +1,127 @@
+package check
+
+import (
+	"fmt"
+	"slices"
+
+	"hmb/lang/ast"
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// Settings lists the top-level settings, for completion and suggestions.
+var Settings = []string{"title", "display", "atmosphere", "elevation", "tolerance"}
+
+// settings reads the top-level settings first, wherever they stand: gauge pressures anywhere in
+// the file need the site atmosphere.
+func (c *checker) settings() {
+	seen := map[string]*ast.Setting{}
+	for _, s := range c.f.Stmts {
+		s, ok := s.(*ast.Setting)
+		if !ok {
+			continue
+		}
+		key := s.Key.Name
+		if !slices.Contains(Settings, key) {
+			if _, isKind := model.Kinds[key]; isKind {
+				c.errorf(CodeUnknownSetting, s, "%s needs a block: %s NAME { ... } with its streams", key, key)
+				continue
+			}
+			d := c.errorf(CodeUnknownSetting, s.Key, "unknown setting %s (settings: title, display, atmosphere, elevation, tolerance)", key)
+			suggest(d, key, append(slices.Clone(Settings), kindNames()...))
+			continue
+		}
+		if prev, dup := seen[key]; dup {
+			d := c.errorf(CodeSettingTwice, s.Key, "%s is set twice", key)
+			d.Related = related(prev, "first set here")
+			continue
+		}
+		other := map[string]string{"atmosphere": "elevation", "elevation": "atmosphere"}[key]
+		if prev, dup := seen[other]; dup {
+			d := c.errorf(CodeSettingTwice, s.Key, "give the site atmosphere or the elevation, not both")
+			d.Related = related(prev, other+" set here")
+			continue
+		}
+		seen[key] = s
+		c.setting(s)
+	}
+}
+
+func (c *checker) setting(s *ast.Setting) {
+	key := s.Key.Name
+	bad := func(want string) { c.errorf(CodeSettingValue, s, "%s takes %s", key, want) }
+	switch key {
+	case "title":
+		if s.Str == nil {
+			bad("a string: title \"...\"")
+			return
+		}
+		c.m.Title = s.Str.Value
+	case "display":
+		if s.Word == nil {
+			bad("a unit system: SI or US")
+			return
+		}
+		sys, ok := units.ParseSystem(s.Word.Name)
+		if !ok {
+			d := c.errorf(CodeSettingValue, s.Word, "unknown unit system %s: SI or US", s.Word.Name)
+			suggest(d, s.Word.Name, []string{"SI", "US"})
+			return
+		}
+		c.m.Display = sys
+	case "atmosphere":
+		if s.Qty == nil {
+			bad("an absolute pressure: atmosphere 14.2 psia")
+			return
+		}
+		v, u, ok := c.convert(s.Qty, units.Pressure, key, false)
+		switch {
+		case !ok:
+		case u.Gauge():
+			c.errorf(CodeSettingValue, s.Qty, "the atmosphere is an absolute pressure, not %s", u.Symbol())
+		case v <= 0:
+			c.errorf(CodeImpossible, s.Qty, "the atmosphere must be above zero")
+		default:
+			c.m.Atm = v
+		}
+	case "elevation":
+		if s.Qty == nil {
+			bad("a height above sea level: elevation 1500 ft")
+			return
+		}
+		v, _, ok := c.convert(s.Qty, units.Length, key, false)
+		if !ok {
+			return
+		}
+		atm, err := units.AtmosphereAt(v)
+		if err != nil {
+			c.errorf(CodeSettingValue, s.Qty, "%v", err)
+			return
+		}
+		c.m.Atm = atm
+	case "tolerance":
+		if s.Qty == nil {
+			bad("a relative tolerance: tolerance 0.1 %")
+			return
+		}
+		v, _, ok := c.convert(s.Qty, units.Dimensionless, key, false)
+		if ok && (v <= 0 || v >= 1) {
+			c.errorf(CodeSettingValue, s.Qty, "tolerance %s%s must be above 0 and below 1 (100 %%)", s.Qty.Raw, unitSuffix(s.Qty))
+			return
+		}
+		if ok {
+			c.m.Tolerance = v
+		}
+	}
+}
+
+func kindNames() []string {
+	names := make([]string, 0, len(model.Kinds))
+	for k := range model.Kinds {
+		names = append(names, k)
+	}
+	slices.Sort(names)
+	return names
+}
+
+var _ = fmt.Sprint

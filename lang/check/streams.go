@@ -1,0 +1,125 @@
+package check
+
+import (
+	"slices"
+
+	"hmb/lang/ast"
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// StreamKeys lists what a stream block may state, for completion and suggestions.
+var StreamKeys = [...]string{"flow", "p", "T", "h", "s", "x", "fluid"}
+
+var propByName = map[string]model.Prop{"flow": model.Flow, "p": model.P, "T": model.T, "h": model.H, "s": model.S, "x": model.X}
+
+// streams lowers every declared stream with its givens.
+func (c *checker) streams() {
+	for _, s := range c.decls {
+		s, ok := s.(*ast.StreamDecl)
+		if !ok {
+			continue
+		}
+		st := &model.Stream{Name: s.Name.Name, Fluid: "water", Span: span(s.Name)}
+		if s.Label != nil {
+			st.Label = s.Label.Value
+		}
+		c.info.Objects[st.Name].Index = len(c.m.Streams)
+		c.streamAt[st.Name] = len(c.m.Streams)
+		c.m.Streams = append(c.m.Streams, st)
+		if s.Block == nil {
+			continue
+		}
+		var given [len(StreamKeys)]ast.Node // by index in StreamKeys
+		for _, e := range s.Block.Entries {
+			c.streamEntry(st, e, &given)
+		}
+	}
+}
+
+func (c *checker) streamEntry(st *model.Stream, e ast.Entry, seen *[len(StreamKeys)]ast.Node) {
+	var key *ast.Ident
+	switch e := e.(type) {
+	case *ast.Given:
+		key = e.Key
+	case *ast.Names:
+		key = e.Key
+	default:
+		return
+	}
+	ki := slices.Index(StreamKeys[:], key.Name)
+	if ki < 0 {
+		d := c.errorf(CodeUnknownParam, key, "a stream has no property %s (it takes flow, p, T, h, s, x and fluid)", key.Name)
+		suggest(d, key.Name, StreamKeys[:])
+		return
+	}
+	if prev := seen[ki]; prev != nil {
+		d := c.errorf(CodeDuplicateGiven, e, "%s of stream %s is given twice", key.Name, st.Name)
+		d.Related = related(prev, "first given here")
+		return
+	}
+	seen[ki] = e
+	if key.Name == "fluid" {
+		n, ok := e.(*ast.Names)
+		if !ok || len(n.Names) != 1 {
+			c.errorf(CodeEntryForm, e, "fluid takes one name: fluid water")
+			return
+		}
+		switch n.Names[0].Name {
+		case "water", "steam": // one fluid, liquid or vapour
+		default:
+			c.errorf(CodeFluid, n.Names[0], "fluid %s is not supported: only water (steam) is", n.Names[0].Name)
+		}
+		return
+	}
+	g, ok := e.(*ast.Given)
+	if !ok {
+		c.errorf(CodeEntryForm, e, "%s takes a number with its unit, not names", key.Name)
+		return
+	}
+	prop := propByName[key.Name]
+	v, u, ok := c.convert(g.Value, prop.Dim(), key.Name, false)
+	if !ok {
+		return
+	}
+	if !c.plausible(prop, g.Value, v, u) {
+		return
+	}
+	gv := &model.Given{Value: v, Unit: spelling(g.Value), Span: span(g)}
+	if g.Tol != nil {
+		if gv.Tol, ok = c.tolerance(g.Tol, g.Value, u, prop.Dim(), key.Name); !ok {
+			return
+		}
+	}
+	st.Given[prop] = gv
+}
+
+// plausible rejects values no state can have: below absolute zero, negative flow, a quality
+// outside 0..1.
+func (c *checker) plausible(prop model.Prop, q *ast.Quantity, v float64, u units.Unit) bool {
+	switch prop {
+	case model.X:
+		return c.fraction(q, v, "quality", true)
+	case model.Flow:
+		if v < 0 {
+			c.errorf(CodeImpossible, q, "flow %s %s is below zero: give streams in the direction they flow", q.Raw, spelling(q))
+			return false
+		}
+	case model.P:
+		if v <= 0 {
+			if u.Gauge() {
+				c.errorf(CodeImpossible, q, "p %s %s is at or below zero absolute: at this site's atmosphere a full vacuum is -%s %s",
+					q.Raw, spelling(q), units.Format(u.DeltaFromSI(c.m.Atm), 4), spelling(q))
+			} else {
+				c.errorf(CodeImpossible, q, "p %s %s is not above zero absolute", q.Raw, spelling(q))
+			}
+			return false
+		}
+	case model.T:
+		if v <= 0 {
+			c.errorf(CodeImpossible, q, "T %s %s is at or below absolute zero", q.Raw, spelling(q))
+			return false
+		}
+	}
+	return true
+}

@@ -1,0 +1,263 @@
+package check
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"hmb/lang/ast"
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// portUse is one stream named in a unit's port list.
+type portUse struct {
+	unit   *Object
+	spec   *model.PortSpec
+	stream *Object
+	name   *ast.Ident
+}
+
+type seenKey[T any] struct {
+	key  string
+	node T
+}
+
+func find[T any](s []seenKey[T], key string) (T, bool) {
+	for _, k := range s {
+		if k.key == key {
+			return k.node, true
+		}
+	}
+	var zero T
+	return zero, false
+}
+
+// roleAliases are other spellings accepted for a role.
+var roleAliases = map[string]string{"vapour": "vapor"}
+
+// Keys lists the roles and parameters of a kind, for completion and suggestions.
+func Keys(k *model.Kind) []string {
+	var out []string
+	for _, p := range k.Ports {
+		out = append(out, p.Role)
+	}
+	for _, p := range k.Params {
+		out = append(out, p.Name)
+	}
+	return out
+}
+
+// units checks every unit declaration and lowers those whose ports all resolve.
+func (c *checker) units() {
+	for _, s := range c.decls {
+		s, ok := s.(*ast.UnitDecl)
+		if !ok {
+			continue
+		}
+		o := c.info.Objects[s.Name.Name]
+		if o.Kind == nil {
+			d := c.errorf(CodeUnknownKind, s.Kind, "unknown unit kind %s (kinds: %s)", s.Kind.Name, strings.Join(kindNames(), ", "))
+			suggest(d, s.Kind.Name, kindNames())
+			continue
+		}
+		if u := c.unit(s, o); u != nil {
+			o.Index = len(c.m.Units)
+			c.m.Units = append(c.m.Units, u)
+		}
+	}
+}
+
+func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
+	k := o.Kind
+	u := &model.Unit{Name: o.Name, Label: o.Label, Kind: k, Span: span(s.Name), Params: map[string]*model.Given{}}
+	complete := true
+	// Kinds have a handful of roles and parameters: small slices beat maps here.
+	var rs [8]seenKey[*ast.Names]
+	var ms [8]string
+	var ps [8]seenKey[ast.Node]
+	roleSeen := rs[:0]
+	mentioned := ms[:0] // roles named, even wrongly: no "missing" report for them
+	paramSeen := ps[:0]
+	u.Ports = make([]model.Port, 0, len(k.Ports))
+	broken := false // a syntax error may hide a port: then missing ports are not reported
+	for _, e := range s.Block.Entries {
+		switch e := e.(type) {
+		case *ast.Bad:
+			broken, complete = true, false
+		case *ast.Names:
+			role := e.Key.Name
+			if alias, ok := roleAliases[role]; ok {
+				role = alias
+			}
+			spec := k.Port(role)
+			mentioned = append(mentioned, role)
+			if spec == nil {
+				complete = false
+				if k.Param(role) != nil {
+					c.errorf(CodeEntryForm, e, "%s takes a number with its unit, not names", role)
+					continue
+				}
+				d := c.errorf(CodeUnknownRole, e.Key, "a %s has no role %s (roles: %s)", k.Name, role, roles(k))
+				suggest(d, role, Keys(k))
+				continue
+			}
+			if prev, dup := find(roleSeen, role); dup && !spec.Many {
+				d := c.errorf(CodeExtraPort, e, "%s %s takes one %s stream", k.Name, o.Name, role)
+				d.Related = related(prev, "already given here")
+				complete = false
+				continue
+			}
+			if len(e.Names) > 1 && !spec.Many {
+				c.errorf(CodeExtraPort, e.Names[1], "%s %s takes one %s stream, not %d", k.Name, o.Name, role, len(e.Names))
+				complete = false
+			}
+			roleSeen = append(roleSeen, seenKey[*ast.Names]{role, e})
+			for _, n := range e.Names {
+				st := c.lookup(n)
+				switch {
+				case st == nil:
+					c.undefined(n, false, false)
+					complete = false
+					continue
+				case st.IsUnit:
+					c.errorf(CodeNotAStream, n, "%s is a %s, not a stream", n.Name, st.KindName)
+					complete = false
+					continue
+				}
+				c.ports = append(c.ports, portUse{unit: o, spec: spec, stream: st, name: n})
+				u.Ports = append(u.Ports, model.Port{Role: role, Stream: st.Index, Span: span(n)})
+			}
+		case *ast.Given:
+			role := e.Key.Name
+			if alias, ok := roleAliases[role]; ok {
+				role = alias
+			}
+			mentioned = append(mentioned, role)
+			var ok bool
+			if paramSeen, ok = c.param(o, e, u, paramSeen); !ok {
+				complete = false
+			}
+		}
+	}
+	for i := range k.Ports {
+		if !slices.Contains(mentioned, k.Ports[i].Role) && !broken {
+			c.errorf(CodeMissingPort, s.Name, "%s %s has no %s stream (%s)", k.Name, o.Name, k.Ports[i].Role, k.Ports[i].Doc)
+			complete = false
+		}
+	}
+	if !complete {
+		return nil
+	}
+	return u
+}
+
+func roles(k *model.Kind) string {
+	var rs []string
+	for _, p := range k.Ports {
+		rs = append(rs, p.Role)
+	}
+	return strings.Join(rs, ", ")
+}
+
+// param checks one parameter of a unit and stores it; false when the unit should be left out.
+func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[ast.Node]) ([]seenKey[ast.Node], bool) {
+	k := o.Kind
+	name := g.Key.Name
+	spec := k.Param(name)
+	if spec == nil {
+		role := name
+		if alias, ok := roleAliases[name]; ok {
+			role = alias
+		}
+		if k.Port(role) != nil {
+			c.errorf(CodeEntryForm, g, "%s takes stream names, not a number", name)
+			return seen, false
+		}
+		var ps []string
+		for _, p := range k.Params {
+			ps = append(ps, p.Name)
+		}
+		list := "none"
+		if len(ps) > 0 {
+			list = strings.Join(ps, ", ")
+		}
+		d := c.errorf(CodeUnknownParam, g.Key, "a %s has no parameter %s (parameters: %s)", k.Name, name, list)
+		suggest(d, name, Keys(k))
+		return seen, false
+	}
+	if prev, dup := find(seen, name); dup {
+		d := c.errorf(CodeDuplicateGiven, g, "%s of %s is given twice", name, o.Name)
+		d.Related = related(prev, "first given here")
+		return seen, false
+	}
+	seen = append(seen, seenKey[ast.Node]{name, g})
+	v, un, ok := c.convert(g.Value, spec.Dim, name, spec.Delta)
+	if !ok {
+		return seen, false
+	}
+	if spec.Dim == units.Dimensionless && !c.fraction(g.Value, v, name, false) {
+		return seen, false
+	}
+	gv := &model.Given{Value: v, Unit: spelling(g.Value), Span: span(g)}
+	if g.Tol != nil {
+		if gv.Tol, ok = c.tolerance(g.Tol, g.Value, un, spec.Dim, name+" of "+o.Name); !ok {
+			return seen, false
+		}
+	}
+	u.Params[name] = gv
+	return seen, true
+}
+
+// wiring checks that each stream leaves at most one unit and enters at most one, never the same.
+func (c *checker) wiring() {
+	type ends struct{ from, to *portUse }
+	byStream := map[*Object]*ends{}
+	for i := range c.ports {
+		p := &c.ports[i]
+		e := byStream[p.stream]
+		if e == nil {
+			e = &ends{}
+			byStream[p.stream] = e
+		}
+		slot, code, verb := &e.to, CodeTwoConsumers, "enters"
+		if !p.spec.Inlet {
+			slot, code, verb = &e.from, CodeTwoProducers, "leaves"
+		}
+		if *slot != nil {
+			prev := *slot
+			d := c.errorf(code, p.name, "stream %s already %s %s %s", p.stream.Name, verb, prev.unit.KindName, prev.unit.Name)
+			if prev.unit == p.unit {
+				d.Message = fmt.Sprintf("stream %s %s %s %s twice", p.stream.Name, verb, p.unit.KindName, p.unit.Name)
+			}
+			d.Related = related(prev.name, "named here")
+			c.dropUnit(p.unit)
+			continue
+		}
+		*slot = p
+		if e.from != nil && e.to != nil && e.from.unit == e.to.unit {
+			d := c.errorf(CodeSelfLoop, p.name, "stream %s both enters and leaves %s %s", p.stream.Name, p.unit.KindName, p.unit.Name)
+			other := e.from
+			if other == p {
+				other = e.to
+			}
+			d.Related = related(other.name, "named here")
+			c.dropUnit(p.unit)
+		}
+	}
+	for _, o := range c.info.Order {
+		if !o.IsUnit && byStream[o] == nil {
+			c.report(model.Warning, CodeUnconnected, o.Decl, "stream %s is not connected to any unit", o.Name)
+		}
+	}
+}
+
+// dropUnit leaves a wrongly wired unit out of the model: the solver must not see a stream with
+// two sources.
+func (c *checker) dropUnit(o *Object) {
+	if o.Index < 0 {
+		return
+	}
+	c.m.Units[o.Index] = nil
+	o.Index = -1
+}

@@ -1,0 +1,494 @@
+// Package parser turns a calc file into a syntax tree and reports what does not fit the notation.
+//
+// participle has no error recovery, so the driver here cuts the token stream into pieces (the
+// header of each top-level statement, and each entry of a block) and parses each piece with a
+// participle production on its own. A broken piece becomes an *ast.Bad node and one diagnostic;
+// every other piece of the file is still parsed, so that the language server can check a file
+// while it is being typed. Braces are matched by the driver, which also notices a block left open
+// when the next statement begins.
+package parser
+
+import (
+	"fmt"
+	"slices"
+	"strconv"
+	"strings"
+
+	"github.com/alecthomas/participle/v2"
+	"github.com/alecthomas/participle/v2/lexer"
+
+	"hmb/lang/ast"
+	"hmb/lang/source"
+	"hmb/lang/token"
+	"hmb/thermo/model"
+)
+
+// Parse parses a calc file. It never fails and never panics: what does not parse is reported in
+// the diagnostics (sorted by position) and left out of the tree as *ast.Bad nodes.
+func Parse(filename string, src []byte) (*ast.File, []model.Diagnostic) {
+	toks, errs := token.Scan(src)
+	p := &parser{src: src, str: string(src), toks: toks}
+	p.file = &ast.File{Src: source.New(filename, src), Tokens: toks}
+	for _, e := range errs {
+		code := CodeIllegal
+		if src[e.Pos] == '"' {
+			code = CodeString
+		}
+		p.errorf(code, e.Pos, e.End, "%s", e.Msg)
+	}
+	for _, t := range toks {
+		if t.Kind == token.Comment {
+			p.file.Comments = append(p.file.Comments, &ast.Comment{Hash: t.Pos, Text: p.str[t.Pos:t.End]})
+		}
+	}
+	p.parseFile()
+	slices.SortStableFunc(p.diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
+	return p.file, p.diags
+}
+
+type parser struct {
+	src     []byte
+	str     string // src as one string; names are substrings of it
+	toks    []token.Token
+	file    *ast.File
+	diags   []model.Diagnostic
+	piece   []token.Token // scratch: the significant tokens of the current piece
+	entries []ast.Entry   // scratch: the entries of the current block
+
+	// Nodes come from slabs: a file has tens of thousands of names and numbers, and one
+	// allocation each would dominate the parse.
+	idents slab[ast.Ident]
+	qtys   slab[ast.Quantity]
+	givens slab[ast.Given]
+}
+
+type slab[T any] struct{ buf []T }
+
+func (s *slab[T]) new() *T {
+	if len(s.buf) == cap(s.buf) {
+		s.buf = make([]T, 0, 256)
+	}
+	s.buf = s.buf[:len(s.buf)+1]
+	return &s.buf[len(s.buf)-1]
+}
+
+func (p *parser) errorf(code string, pos, end int, format string, args ...any) {
+	p.diags = append(p.diags, model.Diagnostic{Span: model.Span{Start: pos, End: end},
+		Severity: model.Error, Code: code, Message: fmt.Sprintf(format, args...)})
+}
+
+func (p *parser) text(t token.Token) string { return p.str[t.Pos:t.End] }
+
+func (p *parser) isKeyword(t token.Token, kw string) bool {
+	return t.Kind == token.Ident && t.End-t.Pos == len(kw) && p.str[t.Pos:t.End] == kw
+}
+
+// skip passes over separators and comments.
+func (p *parser) skip(i int) int {
+	for {
+		switch p.toks[i].Kind {
+		case token.Newline, token.Semi, token.Comment:
+			i++
+		default:
+			return i
+		}
+	}
+}
+
+func (p *parser) parseFile() {
+	for i := p.skip(0); p.toks[i].Kind != token.EOF; i = p.skip(i) {
+		if t := p.toks[i]; t.Kind == token.RBrace {
+			p.errorf(CodeStrayBrace, t.Pos, t.End, "} with no block open")
+			i++
+			continue
+		}
+		i = p.parseStmt(i)
+	}
+}
+
+// parseStmt parses the statement starting at token i and returns the index after it.
+func (p *parser) parseStmt(i int) int {
+	j := i
+	for !p.endsHeader(p.toks[j].Kind) {
+		j++
+	}
+	hasBlock := p.toks[j].Kind == token.LBrace
+	end := j
+	if hasBlock {
+		end++
+	}
+	piece := p.significant(i, end)
+	if len(piece) == 0 { // only illegal characters, already reported
+		return end
+	}
+	var stmt ast.Stmt
+	switch first := piece[0]; {
+	case p.isKeyword(first, "stream"):
+		stmt = p.streamDecl(piece)
+	case p.isKeyword(first, "expect"):
+		stmt = p.expect(piece)
+	case hasBlock:
+		stmt = p.unitDecl(piece)
+	default:
+		stmt = p.setting(piece)
+	}
+	if !hasBlock {
+		p.file.Stmts = append(p.file.Stmts, stmt)
+		return end
+	}
+	b, next := p.block(j, stmt)
+	switch s := stmt.(type) {
+	case *ast.StreamDecl:
+		s.Block = b
+	case *ast.UnitDecl:
+		s.Block = b
+	case *ast.Bad:
+		s.To = max(s.To, b.End())
+	}
+	p.file.Stmts = append(p.file.Stmts, stmt)
+	return next
+}
+
+func (p *parser) endsHeader(k token.Kind) bool {
+	switch k {
+	case token.Newline, token.Semi, token.Comment, token.EOF, token.LBrace, token.RBrace:
+		return true
+	}
+	return false
+}
+
+// significant collects the tokens of toks[i:j] other than comments and newlines (a list of names
+// may continue on the next line after a comma) into the scratch piece. Illegal characters are
+// left out too: the scanner has reported them, once is enough.
+func (p *parser) significant(i, j int) []token.Token {
+	p.piece = p.piece[:0]
+	for _, t := range p.toks[i:j] {
+		if t.Kind != token.Comment && t.Kind != token.Newline && t.Kind != token.Illegal {
+			p.piece = append(p.piece, t)
+		}
+	}
+	return p.piece
+}
+
+// block parses the entries after the "{" at token lb, up to the matching "}", and returns the
+// index after the block. A block still open at the end of the file, or when a line that can only
+// start a statement comes, is reported and closed there.
+func (p *parser) block(lb int, owner ast.Stmt) (*ast.Block, int) {
+	b := &ast.Block{Lbrace: p.toks[lb].Pos, Rbrace: -1}
+	entries := p.entries[:0]
+	defer func() {
+		b.Entries = slices.Clone(entries)
+		p.entries = entries[:0]
+	}()
+	i := lb + 1
+	for {
+		i = p.skip(i)
+		switch t := p.toks[i]; t.Kind {
+		case token.RBrace:
+			b.Rbrace = t.Pos
+			return b, i + 1
+		case token.EOF:
+			p.unclosed(b, owner, -1)
+			return b, i
+		}
+		j, afterComma, startsStmt := i, false, false
+	line:
+		for {
+			switch k := p.toks[j].Kind; k {
+			case token.EOF, token.RBrace, token.Semi:
+				break line
+			case token.Newline:
+				if !afterComma {
+					break line
+				}
+			case token.Comment:
+			case token.LBrace:
+				startsStmt = true
+				break line
+			default:
+				afterComma = k == token.Comma
+			}
+			j++
+		}
+		first := p.toks[i]
+		if startsStmt || p.isKeyword(first, "stream") || p.isKeyword(first, "expect") {
+			p.unclosed(b, owner, first.Pos)
+			return b, i
+		}
+		if piece := p.significant(i, j); len(piece) > 0 {
+			entries = append(entries, p.entry(piece))
+		}
+		i = j
+	}
+}
+
+func (p *parser) unclosed(b *ast.Block, owner ast.Stmt, next int) {
+	what := "block"
+	switch s := owner.(type) {
+	case *ast.StreamDecl:
+		what = "block of stream " + s.Name.Name
+	case *ast.UnitDecl:
+		what = "block of " + s.Kind.Name + " " + s.Name.Name
+	}
+	p.errorf(CodeUnclosed, b.Lbrace, b.Lbrace+1, "%s is not closed: missing }", what)
+	if next >= 0 {
+		d := &p.diags[len(p.diags)-1]
+		d.Related = []model.Related{{Span: model.Span{Start: next, End: next}, Message: "the next statement starts here"}}
+	}
+}
+
+// Productions. Each returns its node, or an *ast.Bad after reporting the error.
+
+func (p *parser) streamDecl(piece []token.Token) ast.Stmt {
+	g, bad := parsePiece(p, prodStream, streamParser, piece, "stream declaration")
+	if bad != nil {
+		return bad
+	}
+	d := &ast.StreamDecl{Keyword: piece[0].Pos, Name: p.ident(piece, g.Name), Label: p.label(piece, g.Label)}
+	for _, n := range g.More {
+		d.More = append(d.More, p.ident(piece, n.Tok))
+	}
+	return d
+}
+
+func (p *parser) unitDecl(piece []token.Token) ast.Stmt {
+	g, bad := parsePiece(p, prodUnit, unitParser, piece, "unit declaration")
+	if bad != nil {
+		return bad
+	}
+	return &ast.UnitDecl{Kind: p.ident(piece, g.Kind), Name: p.ident(piece, g.Name), Label: p.label(piece, g.Label)}
+}
+
+func (p *parser) setting(piece []token.Token) ast.Stmt {
+	if len(piece) == 1 && piece[0].Kind == token.Ident {
+		return p.missingValue(piece[0])
+	}
+	g, bad := parsePiece(p, prodSetting, settingParser, piece, "statement")
+	if bad != nil {
+		return bad
+	}
+	s := &ast.Setting{Key: p.ident(piece, g.Key), Str: p.label(piece, g.Str)}
+	if g.Qty != nil {
+		s.Qty = p.quantity(piece, *g.Qty)
+	}
+	if g.Ident != nil {
+		s.Word = p.ident(piece, *g.Ident)
+	}
+	return s
+}
+
+func (p *parser) expect(piece []token.Token) ast.Stmt {
+	g, bad := parsePiece(p, prodExpect, expectParser, piece, "expectation")
+	if bad != nil {
+		return bad
+	}
+	op := piece[g.Op.Pos.Offset]
+	return &ast.Expect{Keyword: piece[0].Pos, Target: p.ident(piece, g.Target), Prop: p.ident(piece, g.Prop),
+		OpPos: op.Pos, Op: p.text(op), Value: p.quantity(piece, g.Value), Tol: p.tol(piece, g.Tol),
+		Label: p.label(piece, g.Label)}
+}
+
+func (p *parser) entry(piece []token.Token) ast.Entry {
+	if len(piece) == 1 && piece[0].Kind == token.Ident {
+		return p.missingValue(piece[0])
+	}
+	if len(piece) >= 2 && piece[1].Kind == token.Ident {
+		g, bad := parsePiece(p, prodNames, namesParser, piece, "list of names")
+		if bad != nil {
+			return bad
+		}
+		n := &ast.Names{Key: p.ident(piece, g.Key), Names: make([]*ast.Ident, len(g.Names))}
+		for k, t := range g.Names {
+			n.Names[k] = p.ident(piece, t.Tok)
+		}
+		return n
+	}
+	g, bad := parsePiece(p, prodGiven, givenParser, piece, "entry")
+	if bad != nil {
+		return bad
+	}
+	x := p.givens.new()
+	*x = ast.Given{Key: p.ident(piece, g.Key), Value: p.quantity(piece, g.Value), Tol: p.tol(piece, g.Tol)}
+	return x
+}
+
+func (p *parser) missingValue(t token.Token) *ast.Bad {
+	p.errorf(CodeMissingValue, t.Pos, t.End, "%s has no value after it", p.text(t))
+	return &ast.Bad{From: t.Pos, To: t.End}
+}
+
+// Conversions from a production's result. Captured tokens carry, in Pos.Offset, their index in the
+// piece (see parsePiece), never text or positions of their own.
+
+func (p *parser) ident(piece []token.Token, t lexer.Token) *ast.Ident {
+	tk := piece[t.Pos.Offset]
+	id := p.idents.new()
+	*id = ast.Ident{NamePos: tk.Pos, Name: p.text(tk)}
+	return id
+}
+
+func (p *parser) label(piece []token.Token, t *lexer.Token) *ast.String {
+	if t == nil {
+		return nil
+	}
+	tk := piece[t.Pos.Offset]
+	raw := p.text(tk)
+	return &ast.String{ValuePos: tk.Pos, Raw: raw, Value: Unquote(raw)}
+}
+
+func (p *parser) quantity(piece []token.Token, q gQuantity) *ast.Quantity {
+	tk := piece[q.Num.Pos.Offset]
+	raw := p.text(tk)
+	v, err := strconv.ParseFloat(raw, 64)
+	if err != nil && v == 0 { // not a range error: the scanner only makes valid numbers
+		v = 0
+	}
+	x := p.qtys.new()
+	*x = ast.Quantity{NumPos: tk.Pos, Raw: raw, Value: v}
+	if q.Unit != nil {
+		x.Unit = p.ident(piece, *q.Unit)
+	}
+	return x
+}
+
+func (p *parser) tol(piece []token.Token, t *gTol) *ast.Tol {
+	if t == nil {
+		return nil
+	}
+	op := piece[t.Op.Pos.Offset]
+	return &ast.Tol{OpPos: op.Pos, Op: p.text(op), Amount: p.quantity(piece, t.Amt)}
+}
+
+// Unquote resolves the escapes \" and \\ of a string literal as written (with its quotes; the
+// closing one may be missing). Any other backslash stands for itself.
+func Unquote(raw string) string {
+	s := strings.TrimPrefix(raw, `"`)
+	if strings.HasSuffix(s, `"`) && !strings.HasSuffix(s, `\"`) || strings.HasSuffix(s, `\\"`) {
+		s = s[:len(s)-1]
+	}
+	if !strings.Contains(s, `\`) {
+		return s
+	}
+	var b strings.Builder
+	for i := 0; i < len(s); i++ {
+		if s[i] == '\\' && i+1 < len(s) && (s[i+1] == '"' || s[i+1] == '\\') {
+			i++
+		}
+		b.WriteByte(s[i])
+	}
+	return b.String()
+}
+
+// parseErr is a production's failure: the index in the piece of the offending token and what
+// participle expected there.
+type parseErr struct {
+	at     int
+	expect string
+}
+
+// parsePiece parses a piece with a production. Results are kept per shape of piece: the
+// sequence of token kinds, with the keywords the grammar spells out ("stream", "expect",
+// "within") told apart from other names. The grammar looks at nothing else, so two pieces of one
+// shape parse alike, and most lines of a file share a handful of shapes. The tokens handed to
+// participle carry their index in the piece as their offset, which makes a result a template for
+// every piece of its shape.
+func parsePiece[G any](p *parser, prod byte, gp *participle.Parser[G], piece []token.Token, what string) (*G, *ast.Bad) {
+	var kb [64]byte
+	key := append(kb[:0], prod)
+	for _, t := range piece {
+		c := byte(t.Kind)
+		if t.Kind == token.Ident {
+			switch p.text(t) {
+			case "stream":
+				c = 100
+			case "expect":
+				c = 101
+			case "within":
+				c = 102
+			}
+		}
+		key = append(key, c)
+	}
+	r, ok := cache.get(key)
+	if !ok {
+		r = runParticiple(p, gp, piece)
+		cache.put(string(key), r)
+	}
+	if e, isErr := r.(*parseErr); isErr {
+		return nil, p.syntaxError(piece, e, what)
+	}
+	return r.(*G), nil
+}
+
+func runParticiple[G any](p *parser, gp *participle.Parser[G], piece []token.Token) any {
+	lt := make([]lexer.Token, len(piece)+1)
+	for k, t := range piece {
+		lt[k] = lexer.Token{Type: tokenType(t.Kind), Value: p.text(t), Pos: lexer.Position{Offset: k}}
+	}
+	lt[len(piece)] = lexer.Token{Type: lexer.EOF, Pos: lexer.Position{Offset: len(piece)}}
+	pl, err := lexer.Upgrade(&pieceLexer{toks: lt})
+	if err != nil {
+		return &parseErr{at: 0, expect: err.Error()}
+	}
+	g, err := gp.ParseFromLexer(pl)
+	if err == nil {
+		return g
+	}
+	e := &parseErr{at: len(piece)}
+	if pe, ok := err.(participle.Error); ok {
+		e.at = min(max(pe.Position().Offset, 0), len(piece))
+		msg := pe.Message()
+		if k := strings.Index(msg, "(expected "); k >= 0 {
+			e.expect = strings.TrimSuffix(msg[k+len("(expected "):], ")")
+		}
+	}
+	return e
+}
+
+func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast.Bad {
+	from, to := piece[0].Pos, piece[len(piece)-1].End
+	var msg string
+	switch {
+	case e.at == 0 && piece[0].Kind != token.Ident:
+		t := piece[0]
+		msg = fmt.Sprintf("unexpected %s: a statement starts with stream, expect, a unit kind or a setting", p.describe(t))
+	case e.at < len(piece):
+		t := piece[e.at]
+		from = t.Pos
+		exp := "the end of the line"
+		if e.expect != "" {
+			exp = firstExpected(e.expect)
+		}
+		msg = fmt.Sprintf("unexpected %s in %s: expected %s", p.describe(t), what, exp)
+	default:
+		from = to
+		msg = fmt.Sprintf("%s ends too early: expected %s", what, firstExpected(e.expect))
+	}
+	p.errorf(CodeSyntax, from, max(to, from), "%s", msg)
+	return &ast.Bad{From: piece[0].Pos, To: to}
+}
+
+func (p *parser) describe(t token.Token) string {
+	if d := t.Kind.Describe(); d != "" {
+		return fmt.Sprintf("%s %q", d, p.text(t))
+	}
+	return strconv.Quote(p.text(t))
+}
+
+// firstExpected words the first item of participle's "expected" sequence in the notation's terms.
+func firstExpected(s string) string {
+	if strings.HasPrefix(s, "(") {
+		if k := strings.Index(s, ")"); k > 0 {
+			return expectedWords.Replace(strings.ReplaceAll(s[1:k], " | ", ", "))
+		}
+	}
+	if k := strings.IndexByte(s, ' '); k > 0 {
+		s = s[:k]
+	}
+	return expectedWords.Replace(strings.TrimSuffix(s, "?"))
+}
+
+var expectedWords = strings.NewReplacer(
+	"<ident>", "a name", "<number>", "a number", "<string>", "a label string", "<word>", "a unit",
+	"<lbrace>", "{", "<comma>", "','", "<plusminus>", "±", "<eq>", "=", "<lt>", "<", "<le>", "<=",
+	"<gt>", ">", "<ge>", ">=", "GQuantity", "a number", "GName", "a name", "GTol", "a tolerance")

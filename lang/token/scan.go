@@ -1,0 +1,247 @@
+package token
+
+import (
+	"unicode"
+	"unicode/utf8"
+)
+
+// Scan splits src into tokens, ending with an EOF token at len(src). It never fails: characters
+// that start no token become Illegal tokens and are reported in errs, as is a string left open at
+// the end of its line. Comments and newlines are tokens, so that the formatter can keep them.
+//
+// The scanner is written by hand rather than with regular expressions: it runs on every
+// keystroke in the editor and over files of tens of thousands of lines.
+func Scan(src []byte) (toks []Token, errs []Error) {
+	toks = make([]Token, 0, len(src)/3+1) // calc files run to about one token per 4-5 bytes
+	i := 0
+	if len(src) >= 3 && src[0] == 0xEF && src[1] == 0xBB && src[2] == 0xBF { // UTF-8 byte order mark
+		i = 3
+	}
+	for i < len(src) {
+		c := src[i]
+		start := i
+		switch {
+		case c == ' ' || c == '\t' || c == '\r' || c == '\f' || c == '\v':
+			i++
+			continue
+		case c == '\n':
+			i++
+			toks = append(toks, Token{Newline, start, i})
+			continue
+		case c == ';':
+			i++
+			toks = append(toks, Token{Semi, start, i})
+			continue
+		case c == '#':
+			for i < len(src) && src[i] != '\n' {
+				i++
+			}
+			end := i
+			if end > start && src[end-1] == '\r' {
+				end--
+			}
+			toks = append(toks, Token{Comment, start, end})
+			continue
+		case c == '"':
+			end, ok := scanString(src, i)
+			toks = append(toks, Token{String, start, end})
+			if !ok {
+				errs = append(errs, Error{start, end, "string not terminated before the end of the line"})
+			}
+			i = end
+			continue
+		case c == '{':
+			toks = append(toks, Token{LBrace, i, i + 1})
+			i++
+			continue
+		case c == '}':
+			toks = append(toks, Token{RBrace, i, i + 1})
+			i++
+			continue
+		case c == ',':
+			toks = append(toks, Token{Comma, i, i + 1})
+			i++
+			continue
+		case c == '=':
+			toks = append(toks, Token{Eq, i, i + 1})
+			i++
+			continue
+		case c == '<' || c == '>':
+			k := Lt
+			if c == '>' {
+				k = Gt
+			}
+			i++
+			if i < len(src) && src[i] == '=' {
+				i++
+				k++ // Le follows Lt, Ge follows Gt
+			}
+			toks = append(toks, Token{k, start, i})
+			continue
+		case c == '+' && i+1 < len(src) && src[i+1] == '-':
+			i += 2
+			toks = append(toks, Token{PlusMinus, start, i})
+			continue
+		case c == '+' && i+2 < len(src) && src[i+1] == '/' && src[i+2] == '-':
+			i += 3
+			toks = append(toks, Token{PlusMinus, start, i})
+			continue
+		case c == 0xC2 && i+1 < len(src) && src[i+1] == 0xB1: // ±
+			i += 2
+			toks = append(toks, Token{PlusMinus, start, i})
+			continue
+		case isDigit(c) || (c == '.' || c == '-' || c == '+') && startsNumber(src, i):
+			i = scanNumber(src, i)
+			toks = append(toks, Token{Number, start, i})
+			continue
+		}
+		// Names, unit spellings, and whatever else: decode the rune.
+		r, size := rune(c), 1
+		if c >= utf8.RuneSelf {
+			r, size = utf8.DecodeRune(src[i:])
+			if r == utf8.RuneError && size == 1 {
+				for i < len(src) && src[i] >= utf8.RuneSelf {
+					if r, s := utf8.DecodeRune(src[i:]); r != utf8.RuneError || s != 1 {
+						break
+					}
+					i++
+				}
+				toks = append(toks, Token{Illegal, start, i})
+				errs = append(errs, Error{start, i, "invalid UTF-8 encoding"})
+				continue
+			}
+			if unicode.IsSpace(r) { // a no-break space pasted from a document
+				i += size
+				continue
+			}
+		}
+		if r < ' ' || r == 0x7F || unicode.IsControl(r) {
+			i += size
+			toks = append(toks, Token{Illegal, start, i})
+			errs = append(errs, Error{start, i, "unexpected control character"})
+			continue
+		}
+		end, ident := scanWord(src, i)
+		k := Word
+		if ident {
+			k = Ident
+		}
+		toks = append(toks, Token{k, start, end})
+		i = end
+	}
+	toks = append(toks, Token{EOF, len(src), len(src)})
+	return toks, errs
+}
+
+func isDigit(c byte) bool { return '0' <= c && c <= '9' }
+
+// startsNumber reports whether a '.', '+' or '-' at i begins a number: -4.5, +3, .5, -.5
+func startsNumber(src []byte, i int) bool {
+	if src[i] != '.' {
+		i++
+	}
+	if i < len(src) && src[i] == '.' {
+		i++
+	}
+	return i < len(src) && isDigit(src[i])
+}
+
+func scanNumber(src []byte, i int) int {
+	if src[i] == '+' || src[i] == '-' {
+		i++
+	}
+	for i < len(src) && isDigit(src[i]) {
+		i++
+	}
+	if i < len(src) && src[i] == '.' {
+		i++
+		for i < len(src) && isDigit(src[i]) {
+			i++
+		}
+	}
+	// An exponent only when digits follow, so that "2e" stays a number and a name.
+	if i < len(src) && (src[i] == 'e' || src[i] == 'E') {
+		j := i + 1
+		if j < len(src) && (src[j] == '+' || src[j] == '-') {
+			j++
+		}
+		if j < len(src) && isDigit(src[j]) {
+			for j < len(src) && isDigit(src[j]) {
+				j++
+			}
+			i = j
+		}
+	}
+	return i
+}
+
+// scanString returns the end of the string starting at i and whether it was closed on its line.
+func scanString(src []byte, i int) (int, bool) {
+	for i++; i < len(src); i++ {
+		switch src[i] {
+		case '\\':
+			if i+1 < len(src) && src[i+1] != '\n' {
+				i++
+			}
+		case '"':
+			return i + 1, true
+		case '\n':
+			if src[i-1] == '\r' {
+				return i - 1, false
+			}
+			return i, false
+		}
+	}
+	return i, false
+}
+
+// scanWord scans a run of characters that are not spaces, punctuation of the notation, or
+// control characters, and reports whether the run is an identifier. Inside parentheses spaces
+// belong to the word, so that "kJ/(kg K)" is one unit spelling.
+func scanWord(src []byte, i int) (end int, ident bool) {
+	ident = true
+	depth := 0
+	for n := 0; i < len(src); n++ {
+		c := src[i]
+		r, size := rune(c), 1
+		if c >= utf8.RuneSelf {
+			r, size = utf8.DecodeRune(src[i:])
+			if r == utf8.RuneError && size == 1 || r == '±' || unicode.IsControl(r) {
+				return i, ident && n > 0
+			}
+			if unicode.IsSpace(r) && depth == 0 {
+				return i, ident
+			}
+		} else {
+			switch c {
+			case ' ', '\t', '\r', '\f', '\v':
+				if depth == 0 {
+					return i, ident
+				}
+			case '\n', '{', '}', ',', ';', '#', '"', '=', '<', '>':
+				return i, ident
+			case '+':
+				if i+1 < len(src) && (src[i+1] == '-' || src[i+1] == '/' && i+2 < len(src) && src[i+2] == '-') {
+					return i, ident
+				}
+			case '(':
+				depth++
+			case ')':
+				if depth > 0 {
+					depth--
+				}
+			}
+			if c < ' ' || c == 0x7F {
+				return i, ident
+			}
+		}
+		if ident {
+			letter := r == '_' || unicode.IsLetter(r)
+			if n == 0 && !letter || n > 0 && !letter && !unicode.IsDigit(r) && r != '-' {
+				ident = false
+			}
+		}
+		i += size
+	}
+	return i, ident
+}

@@ -1,0 +1,239 @@
+package feature
+
+// This file implements hover: the solved state of a stream, the balance of a unit, the SI value of
+// a unit spelling and one line of help on keywords, kinds, roles, parameters and properties.
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"strings"
+
+	"go.lsp.dev/protocol"
+
+	"hmb/lsp/cache"
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// Hover returns the hover at byte offset off, or nil when there is nothing to say. A hover on a
+// stream or unit waits (under ctx) for the snapshot's solution.
+func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover, error) {
+	syn := snap.Syntax()
+	var text string
+	var span model.Span
+	if i := refAt(syn, off); i >= 0 && syn.Refs[i].Symbol >= 0 {
+		r := syn.Refs[i]
+		sym := &syn.Symbols[r.Symbol]
+		sol, err := snap.Solution(ctx)
+		if err != nil && ctx.Err() != nil {
+			return nil, err
+		}
+		// A superseded snapshot has no solution; describe the symbol without values.
+		span = r.Span
+		if sym.Kind == cache.StreamSymbol {
+			text = StreamHover(syn, sol, sym)
+		} else {
+			text = UnitHover(syn, sol, sym)
+		}
+	} else if t := tokenAt(syn, off); t >= 0 {
+		tok := syn.Tokens[t]
+		span = tok.Span
+		text = tokenHover(snap, syn, t)
+	}
+	if text == "" {
+		return nil, nil
+	}
+	rng := snap.Mapper.Range(span)
+	return &protocol.Hover{
+		Contents: protocol.MarkupContent{Kind: protocol.Markdown, Value: text},
+		Range:    &rng,
+	}, nil
+}
+
+func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
+	tok := syn.Tokens[t]
+	word := string(snap.Src()[tok.Span.Start:tok.Span.End])
+	switch tok.Kind {
+	case cache.KeywordToken:
+		for _, k := range snap.Analyzer().Keywords() {
+			if k.Name == word {
+				return fmt.Sprintf("`%s`: %s", k.Name, k.Doc)
+			}
+		}
+	case cache.KindToken:
+		if k := model.Kinds[word]; k != nil {
+			return fmt.Sprintf("`%s`: %s", k.Name, k.Doc)
+		}
+	case cache.RoleToken, cache.ParamToken:
+		u := enclosingUnit(syn, tok.Span.Start)
+		if u == nil {
+			return ""
+		}
+		k := model.Kinds[u.UnitKind]
+		if k == nil {
+			return ""
+		}
+		if p := k.Port(word); p != nil && tok.Kind == cache.RoleToken {
+			dir := "outlet"
+			if p.Inlet {
+				dir = "inlet"
+			}
+			return fmt.Sprintf("`%s` (%s port of a %s): %s", word, dir, k.Name, p.Doc)
+		}
+		if p := k.Param(word); p != nil {
+			return fmt.Sprintf("`%s` (%s parameter of a %s): %s", word, p.Dim, k.Name, p.Doc)
+		}
+	case cache.PropToken:
+		if doc := propDoc[word]; doc != "" {
+			return fmt.Sprintf("`%s`: %s", word, doc)
+		}
+	case cache.SpellingToken:
+		return SpellingHover(snap.Src(), syn, t)
+	}
+	return ""
+}
+
+// propDoc is one line of help per stream property a file may give.
+var propDoc = map[string]string{
+	"flow": "mass flow of the stream",
+	"p":    "pressure (absolute, or gauge against the site atmosphere with a gauge unit)",
+	"T":    "temperature",
+	"h":    "specific enthalpy (IAPWS-IF97 reference: liquid at the triple point has u = 0, s = 0)",
+	"s":    "specific entropy",
+	"x":    "quality: the vapour mass fraction of wet steam, 0 (saturated liquid) to 1 (saturated vapour)",
+}
+
+// siBase names the SI base unit of each dimension, for the equivalents hover shows.
+var siBase = map[units.Dim]string{
+	units.Dimensionless: "", units.Pressure: "Pa", units.Temperature: "K", units.TemperatureDiff: "K",
+	units.SpecificEnergy: "J/kg", units.SpecificEntropy: "J/(kg K)", units.SpecificVolume: "m3/kg",
+	units.Density: "kg/m3", units.MassFlow: "kg/s", units.Power: "W", units.Length: "m",
+}
+
+// SpellingHover describes the unit spelling of token t: its dimension and, when a number stands
+// before it, the value in SI base units.
+func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
+	tok := syn.Tokens[t]
+	spelling := string(src[tok.Span.Start:tok.Span.End])
+	u, err := units.Lookup(spelling)
+	if err != nil {
+		return fmt.Sprintf("`%s`: %v", spelling, err)
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "`%s`: %s", spelling, u.Dim())
+	if u.Symbol() != spelling {
+		fmt.Fprintf(&b, ", written `%s` in canonical form", u.Symbol())
+	}
+	if u.Gauge() {
+		fmt.Fprintf(&b, ", gauge (above a site atmosphere of %s Pa)", units.Format(syn.Atm, 6))
+	}
+	base := siBase[u.Dim()]
+	if t > 0 && syn.Tokens[t-1].Kind == cache.NumberToken {
+		num := syn.Tokens[t-1].Span
+		if v, _, err := units.ParseQuantity(string(src[num.Start:num.End])); err == nil {
+			si := u.ToSI(v, syn.Atm)
+			fmt.Fprintf(&b, "\n\n%s %s = %s %s", units.Format(v, 15), spelling, units.Format(si, 7), base)
+			if u.Gauge() {
+				b.WriteString(" absolute")
+			}
+			return b.String()
+		}
+	}
+	if base != "" {
+		fmt.Fprintf(&b, "\n\n1 %s = %s %s", spelling, units.Format(u.DeltaToSI(1), 7), base)
+	}
+	return b.String()
+}
+
+// show writes an SI value in the display unit of its dimension; unknown values say so rather
+// than print NaN.
+func show(v float64, d units.Dim, sys units.System, atm float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "unknown"
+	}
+	u := sys.Default(d)
+	s := units.Format(u.FromSI(v, atm), 5)
+	if u.Symbol() != "" {
+		s += " " + u.Symbol()
+	}
+	return s
+}
+
+// StreamHover is the Markdown description of a stream: its solved state, each value with where it
+// came from. sol may be nil (not solved: a newer version arrived, or the file did not lower).
+func StreamHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "**stream** `%s`", sym.Name)
+	if sym.Label != "" {
+		fmt.Fprintf(&b, " %s", sym.Label)
+	}
+	if sol == nil || sym.Index < 0 || sym.Index >= len(sol.Streams) {
+		b.WriteString("\n\nnot solved")
+		return b.String()
+	}
+	st := &sol.Streams[sym.Index]
+	b.WriteString("\n\n| | value | from |\n|---|---:|---|\n")
+	for q := cache.Quantity(0); q < cache.NumQuantities; q++ {
+		v := st.Values[q]
+		val := show(v, q.Dim(), syn.Display, syn.Atm)
+		if q == cache.QX && !math.IsNaN(v) {
+			val = units.Format(v, 4)
+		}
+		fmt.Fprintf(&b, "| %s | %s | %s |\n", q, val, mdCell(st.Source[q]))
+	}
+	phase := st.Phase
+	if phase == "" {
+		phase = "unknown"
+	}
+	fmt.Fprintf(&b, "| phase | %s | |\n", mdCell(phase))
+	return b.String()
+}
+
+// UnitHover is the Markdown description of a unit: its mass and energy balance, duty or power,
+// and entropy generated.
+func UnitHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "**%s** `%s`", sym.UnitKind, sym.Name)
+	if sym.Label != "" {
+		fmt.Fprintf(&b, " %s", sym.Label)
+	}
+	if k := model.Kinds[sym.UnitKind]; k != nil {
+		fmt.Fprintf(&b, "\n\n%s", k.Doc)
+	}
+	if sol == nil || sym.Index < 0 || sym.Index >= len(sol.Units) {
+		b.WriteString("\n\nnot solved")
+		return b.String()
+	}
+	u := &sol.Units[sym.Index]
+	sys, atm := syn.Display, syn.Atm
+	b.WriteString("\n\n| balance | in | out |\n|---|---:|---:|\n")
+	fmt.Fprintf(&b, "| mass | %s | %s |\n", show(u.MassIn, units.MassFlow, sys, atm), show(u.MassOut, units.MassFlow, sys, atm))
+	fmt.Fprintf(&b, "| energy | %s | %s |\n", show(u.EnergyIn, units.Power, sys, atm), show(u.EnergyOut, units.Power, sys, atm))
+	if !math.IsNaN(u.Duty) {
+		fmt.Fprintf(&b, "\nduty %s", show(u.Duty, units.Power, sys, atm))
+	}
+	if !math.IsNaN(u.Power) {
+		fmt.Fprintf(&b, "\npower %s", show(u.Power, units.Power, sys, atm))
+	}
+	if !math.IsNaN(u.Sgen) {
+		fmt.Fprintf(&b, "\nentropy generated %s", showSgen(u.Sgen, sys))
+	}
+	return b.String()
+}
+
+// showSgen writes an entropy rate (W/K) as the display system's power unit per degree of its
+// absolute scale: kW/K, or Btu/h per rankine (1 R = 5/9 K).
+func showSgen(wPerK float64, sys units.System) string {
+	p := sys.Default(units.Power)
+	if sys == units.US {
+		return units.Format(p.FromSI(wPerK*5/9, 0), 5) + " " + p.Symbol() + "/R"
+	}
+	return units.Format(p.FromSI(wPerK, 0), 5) + " " + p.Symbol() + "/K"
+}
+
+// mdCell keeps a table cell on one line and its pipes from splitting it.
+func mdCell(s string) string {
+	s = strings.ReplaceAll(s, "\n", " ")
+	return strings.ReplaceAll(s, "|", `\|`)
+}

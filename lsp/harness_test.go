@@ -1,0 +1,216 @@
+package lsp
+
+import (
+	"bytes"
+	"context"
+	"encoding/json"
+	"math"
+	"net"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"go.lsp.dev/jsonrpc2"
+	"go.lsp.dev/protocol"
+
+	"hmb/lsp/analysis"
+	"hmb/lsp/cache"
+	"hmb/thermo/model"
+)
+
+// solveDouble stands in for the solver in these tests of the server: it reports each stream's
+// givens as its state ("given") and leaves everything else unknown, so that every value the tests
+// check is one the test file states. A model titled "slow" never finishes before its context is
+// cancelled.
+func solveDouble(ctx context.Context, m *model.Model) *cache.Solution {
+	if m.Title == "slow" {
+		<-ctx.Done()
+		return nil
+	}
+	sol := &cache.Solution{}
+	for _, s := range m.Streams {
+		var st cache.StreamState
+		for q := range st.Values {
+			st.Values[q] = math.NaN()
+		}
+		for p, q := range map[model.Prop]cache.Quantity{model.Flow: cache.QFlow, model.P: cache.QP,
+			model.T: cache.QT, model.H: cache.QH, model.S: cache.QS, model.X: cache.QX} {
+			if g := s.Given[p]; g != nil {
+				st.Values[q] = g.Value
+				st.Source[q] = "given"
+			}
+		}
+		sol.Streams = append(sol.Streams, st)
+	}
+	for _, u := range m.Units {
+		b := cache.UnitBalance{MassIn: math.NaN(), MassOut: math.NaN(), EnergyIn: math.NaN(),
+			EnergyOut: math.NaN(), Duty: math.NaN(), Power: math.NaN(), Sgen: math.NaN()}
+		if g := u.Params["power"]; g != nil {
+			b.Power = g.Value
+		}
+		sol.Units = append(sol.Units, b)
+	}
+	return sol
+}
+
+// client drives a server in-process over a pipe, on the same jsonrpc2 package editors' clients
+// are built on.
+type client struct {
+	t      testing.TB
+	conn   jsonrpc2.Conn
+	ctx    context.Context
+	done   chan error
+	log    *syncBuffer
+	mu     sync.Mutex
+	diags  []*protocol.PublishDiagnosticsParams
+	notify chan struct{}
+}
+
+type syncBuffer struct {
+	mu sync.Mutex
+	b  bytes.Buffer
+}
+
+func (b *syncBuffer) Write(p []byte) (int, error) {
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	return b.b.Write(p)
+}
+
+func (b *syncBuffer) String() string {
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	return b.b.String()
+}
+
+func newTestOptions(debounce time.Duration) options {
+	return options{analyzer: analysis.New(solveDouble), debounce: debounce}
+}
+
+// startServer starts a server and a client and initializes the session.
+func startServer(t testing.TB, opts options) *client {
+	t.Helper()
+	c := startRaw(t, opts)
+	var res map[string]any
+	if err := c.call(protocol.MethodInitialize, map[string]any{"processId": nil, "rootUri": nil, "capabilities": map[string]any{}}, &res); err != nil {
+		t.Fatal(err)
+	}
+	c.notifyServer(protocol.MethodInitialized, map[string]any{})
+	return c
+}
+
+// startRaw starts a server and a client without initializing.
+func startRaw(t testing.TB, opts options) *client {
+	t.Helper()
+	sc, cc := net.Pipe()
+	ctx, cancel := context.WithCancel(context.Background())
+	c := &client{t: t, ctx: ctx, done: make(chan error, 1), log: &syncBuffer{}, notify: make(chan struct{}, 1)}
+	go func() { c.done <- run(ctx, sc, sc, c.log, opts) }()
+	c.conn = jsonrpc2.NewConn(jsonrpc2.NewStream(cc))
+	c.conn.Go(ctx, func(ctx context.Context, reply jsonrpc2.Replier, req jsonrpc2.Request) error {
+		if req.Method() == protocol.MethodTextDocumentPublishDiagnostics {
+			var p protocol.PublishDiagnosticsParams
+			if err := json.Unmarshal(req.Params(), &p); err != nil {
+				t.Errorf("bad publishDiagnostics: %v", err)
+			}
+			c.mu.Lock()
+			c.diags = append(c.diags, &p)
+			c.mu.Unlock()
+			select {
+			case c.notify <- struct{}{}:
+			default:
+			}
+		}
+		return reply(ctx, nil, nil)
+	})
+	t.Cleanup(func() {
+		cancel()
+		cc.Close()
+		sc.Close()
+	})
+	return c
+}
+
+func (c *client) call(method string, params, result any) error {
+	ctx, cancel := context.WithTimeout(c.ctx, 10*time.Second)
+	defer cancel()
+	_, err := c.conn.Call(ctx, method, params, result)
+	return err
+}
+
+func (c *client) mustCall(method string, params, result any) {
+	c.t.Helper()
+	if err := c.call(method, params, result); err != nil {
+		c.t.Fatalf("%s: %v", method, err)
+	}
+}
+
+func (c *client) notifyServer(method string, params any) {
+	c.t.Helper()
+	if err := c.conn.Notify(c.ctx, method, params); err != nil {
+		c.t.Fatalf("notify %s: %v", method, err)
+	}
+}
+
+func (c *client) open(uri protocol.DocumentURI, version int32, text string) {
+	c.notifyServer(protocol.MethodTextDocumentDidOpen, &protocol.DidOpenTextDocumentParams{
+		TextDocument: protocol.TextDocumentItem{URI: uri, LanguageID: "hmb", Version: version, Text: text}})
+}
+
+func (c *client) change(uri protocol.DocumentURI, version int32, changes ...map[string]any) {
+	c.notifyServer(protocol.MethodTextDocumentDidChange, map[string]any{
+		"textDocument":   map[string]any{"uri": uri, "version": version},
+		"contentChanges": changes,
+	})
+}
+
+// waitDiags waits for the last publication for uri at version to be the complete one: it
+// returns the latest publication for that version once no further one has come for a while.
+func (c *client) waitDiags(uri protocol.DocumentURI, version int32) []protocol.Diagnostic {
+	c.t.Helper()
+	deadline := time.Now().Add(10 * time.Second)
+	var got *protocol.PublishDiagnosticsParams
+	quiet := 0
+	for time.Now().Before(deadline) {
+		c.mu.Lock()
+		var latest *protocol.PublishDiagnosticsParams
+		for _, p := range c.diags {
+			if p.URI == uri && int32(p.Version) == version {
+				latest = p
+			}
+		}
+		c.mu.Unlock()
+		if latest != nil && latest == got {
+			quiet++
+			if quiet >= 10 {
+				return got.Diagnostics
+			}
+		} else {
+			got, quiet = latest, 0
+		}
+		time.Sleep(10 * time.Millisecond)
+	}
+	c.t.Fatalf("no diagnostics for %s version %d; got %d publications", uri, version, len(c.published()))
+	return nil
+}
+
+func (c *client) published() []*protocol.PublishDiagnosticsParams {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return append([]*protocol.PublishDiagnosticsParams(nil), c.diags...)
+}
+
+// at returns the protocol position of the n-th byte after the first occurrence of marker in src.
+func at(t testing.TB, src, marker string, n int) protocol.Position {
+	t.Helper()
+	i := strings.Index(src, marker)
+	if i < 0 {
+		t.Fatalf("marker %q not in source", marker)
+	}
+	return cache.NewMapper("", []byte(src)).Position(i + n)
+}
+
+func docPos(uri protocol.DocumentURI, p protocol.Position) map[string]any {
+	return map[string]any{"textDocument": map[string]any{"uri": uri}, "position": p}
+}

@@ -1,0 +1,51 @@
+package model
+
+// Severity orders diagnostics; the numbering matches the LSP's DiagnosticSeverity.
+type Severity uint8
+
+const (
+	Error   Severity = 1
+	Warning Severity = 2
+	Info    Severity = 3
+	Hint    Severity = 4
+)
+
+func (s Severity) String() string {
+	switch s {
+	case Error:
+		return "error"
+	case Warning:
+		return "warning"
+	case Info:
+		return "info"
+	case Hint:
+		return "hint"
+	}
+	return "?"
+}
+
+// Related points at another place that contributed to a diagnostic: the other given of a conflict,
+// a stream of a balance that does not close.
+type Related struct {
+	Span    Span
+	Message string
+}
+
+// Diagnostic is one finding about a calc file. Code is stable (see the table in README.md): quick
+// fixes and suppression key on it. Message names streams and values in the user's units.
+type Diagnostic struct {
+	Span     Span
+	Severity Severity
+	Code     string
+	Message  string
+	Related  []Related
+	// Fix, when set, is a suggested replacement of the text at Span (a nearest spelling, say).
+	Fix string
+}
+
+// CodeInfo documents one diagnostic code.
+type CodeInfo struct {
+	Code     string
+	Severity Severity
+	Summary  string
+}

@@ -1,0 +1,122 @@
+// Package model is the system description that the notation hands to the balance solver: streams
+// with their givens in SI base units, units (equipment) with their kind, ports and parameters, and
+// expectations. It holds no tokens and no syntax trees; every element carries the byte span of the
+// source text it came from so that the solver's findings can be reported at a position.
+package model
+
+import "hmb/thermo/units"
+
+// Span is a half-open byte range [Start, End) in the source file.
+type Span struct{ Start, End int }
+
+// Prop names a stream property a calc file may give or an expectation may check.
+type Prop uint8
+
+const (
+	Flow Prop = iota // mass flow, kg/s
+	P                // pressure, Pa (absolute)
+	T                // temperature, K
+	H                // specific enthalpy, J/kg
+	S                // specific entropy, J/(kg K)
+	X                // quality, fraction 0..1
+	NumProps
+)
+
+var propNames = [NumProps]string{"flow", "p", "T", "h", "s", "x"}
+
+func (p Prop) String() string {
+	if p < NumProps {
+		return propNames[p]
+	}
+	return "?"
+}
+
+// Dim is the dimension of the property.
+func (p Prop) Dim() units.Dim {
+	switch p {
+	case Flow:
+		return units.MassFlow
+	case P:
+		return units.Pressure
+	case T:
+		return units.Temperature
+	case H:
+		return units.SpecificEnergy
+	case S:
+		return units.SpecificEntropy
+	}
+	return units.Dimensionless
+}
+
+// Given is one stated value, converted to SI base units.
+type Given struct {
+	Value float64 // SI base units (absolute pressure, kelvin, fraction)
+	Tol   float64 // stated ± tolerance as an absolute SI difference; 0 when none was given
+	Unit  string  // the spelling the user wrote, for messages
+	Span  Span    // the whole statement that gives the value
+}
+
+// Stream is a state point: one fluid at one state with one mass flow.
+type Stream struct {
+	Name  string
+	Label string
+	Fluid string // "water" (liquid or steam: IAPWS-IF97)
+	Span  Span   // the stream's name where it is declared
+	Given [NumProps]*Given
+}
+
+// Port connects a unit to a stream.
+type Port struct {
+	Role   string // a role of the unit's kind (see Kinds), e.g. "in", "out", "hot_in"
+	Stream int    // index into Model.Streams
+	Span   Span   // where the stream is named in the unit
+}
+
+// Unit is one piece of equipment joining streams.
+type Unit struct {
+	Name   string
+	Label  string
+	Kind   *Kind
+	Span   Span // the unit's name where it is declared
+	Ports  []Port
+	Params map[string]*Given // by parameter name (see Kind.Params), SI base units
+}
+
+// Op is the comparison an expectation makes.
+type Op uint8
+
+const (
+	Eq Op = iota // |value - target| <= Tol
+	Lt
+	Le
+	Gt
+	Ge
+)
+
+func (o Op) String() string { return [...]string{"=", "<", "<=", ">", ">="}[o] }
+
+// Expect is an assertion about a solved value, checked after solving.
+type Expect struct {
+	Stream   int    // index into Model.Streams, or -1
+	Unit     int    // index into Model.Units, or -1
+	Prop     string // a stream Prop name ("x", "T", ...) or a unit result ("duty", "power", "sgen")
+	Op       Op
+	Value    float64 // SI
+	Tol      float64 // absolute SI tolerance (Eq only)
+	Spelling string  // the unit spelling the user wrote, for messages
+	Span     Span
+}
+
+// Model is a whole calc file, ready to solve.
+type Model struct {
+	Title     string
+	Display   units.System // the unit system results are shown in
+	Atm       float64      // site atmosphere, Pa (gauge pressures are already converted)
+	Tolerance float64      // relative closure tolerance of balances (fraction, e.g. 0.001)
+	Streams   []*Stream
+	Units     []*Unit
+	Expects   []*Expect
+	// Incomplete is set when the notation dropped broken statements; the solver then does not
+	// report under-specification, which would only echo the errors already reported.
+	Incomplete bool
+}

@@ -1,0 +1,43 @@
+package solve
+
+import "hmb/thermo/units"
+
+// Boiler: steam generator heating feedwater to steam.
+//
+//	mass:     m_in = m_out
+//	energy:   m h_in + duty = m h_out
+//	pressure: p_out = p_in - dp
+//	fuel:     duty = efficiency * fuel      (only when efficiency or fuel is given)
+//
+// Entropy generation as for the heater (heater.go); the furnace lies outside the boundary.
+func init() { ops["boiler"] = unitOp{buildBoiler, finishBoiler} }
+
+func buildBoiler(b *builder, u int) {
+	in, out := b.port(u, "in"), b.port(u, "out")
+	q := b.param(u, "duty", true, 0)
+	b.massBalance(u, []int{in}, []int{out})
+	b.energyBalance(u, "", []int{in}, []int{out}, []term{q}, nil)
+	b.pressureDrop(u, in, out, b.param(u, "dp", false, 0), "")
+	un := b.m.Units[u]
+	if un.Params["efficiency"] == nil && un.Params["fuel"] == nil {
+		return
+	}
+	fuel := b.param(u, "fuel", true, 0)
+	eff := b.param(u, "efficiency", true, 0)
+	b.unitEq(u, Equation{
+		Label: "fuel balance of " + b.uname(u), Kind: EqFuel, Dim: units.Power, LHS: "duty", RHS: "efficiency x fuel",
+		Vars:  []int{fuel.v, eff.v, q.v},
+		eval:  func(x []float64) (float64, float64, error) { return x[q.v], x[eff.v] * x[fuel.v], nil },
+		grad:  func(x []float64, g []float64) { g[0], g[1], g[2] = -x[eff.v], -x[fuel.v], 1 },
+		floor: 1e-3,
+	})
+}
+
+func finishBoiler(c *unitCalc) {
+	finishHeated(c)
+	c.res.Fuel = c.param("fuel", nanf)
+	c.res.Efficiency = c.param("efficiency", nanf)
+	if g := c.un.Params["efficiency"]; g == nil && finite(c.res.Efficiency) && !(c.res.Efficiency > 0 && c.res.Efficiency <= 1) {
+		c.s.diag(errSev, CodeEfficiency, c.un.Span, c.name()+": solved boiler efficiency "+c.s.f.frac(c.res.Efficiency)+" is outside 0..1")
+	}
+}

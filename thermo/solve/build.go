@@ -1,0 +1,399 @@
+package solve
+
+import (
+	"fmt"
+	"math"
+
+	"hmb/thermo/if97"
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// unitOp is what a unit kind contributes: its equations, and the results and checks computed from
+// the solved streams.
+type unitOp struct {
+	build  func(b *builder, u int)
+	finish func(c *unitCalc)
+}
+
+// ops is filled by the init function of each unit's file.
+var ops = map[string]unitOp{}
+
+// builder turns a model into a System, reporting what cannot become equations.
+type builder struct {
+	m      *model.Model
+	sys    *System
+	fmt    formatter
+	relTol float64
+	diags  []model.Diagnostic
+	// blocked streams already carry a state error; their unknowns are not reported again as
+	// under-specified.
+	blocked []bool
+	// badUnit units were not built (bad ports); their streams are not reported as under-specified.
+	badUnit []bool
+	// givens and unit equations are collected apart so that givens come first in the matching.
+	givenEqs, unitEqs []Equation
+}
+
+func (b *builder) diag(sev model.Severity, code string, span model.Span, msg string, rel ...model.Related) {
+	b.diags = append(b.diags, model.Diagnostic{Span: span, Severity: sev, Code: code, Message: msg, Related: rel})
+}
+
+func (b *builder) addVar(v Variable) int {
+	b.sys.Vars = append(b.sys.Vars, v)
+	return len(b.sys.Vars) - 1
+}
+
+func (b *builder) sname(i int) string { return b.m.Streams[i].Name }
+
+// uname names a unit the way messages do: "mixer DA".
+func (b *builder) uname(u int) string {
+	un := b.m.Units[u]
+	return un.Kind.Name + " " + un.Name
+}
+
+// term is a constant or an unknown in a linear combination.
+type term struct {
+	v int // unknown, or -1 for the constant c
+	c float64
+}
+
+func (t term) val(x []float64) float64 {
+	if t.v >= 0 {
+		return x[t.v]
+	}
+	return t.c
+}
+
+func konst(c float64) term { return term{v: -1, c: c} }
+
+// param returns a unit parameter: an unknown when variable is set (with "unknown = given" added
+// when the file gives it), else the given value or def.
+func (b *builder) param(u int, name string, variable bool, def float64) term {
+	un := b.m.Units[u]
+	g := un.Params[name]
+	spec := un.Kind.Param(name)
+	if !variable {
+		if g != nil && finite(g.Value) {
+			return konst(g.Value)
+		}
+		return konst(def)
+	}
+	dim, delta := units.Dimensionless, false
+	if spec != nil {
+		dim, delta = spec.Dim, spec.Delta
+	}
+	typ := 1.0
+	switch dim {
+	case units.Power:
+		typ = 1e6
+	case units.Pressure:
+		typ = 1e5
+	case units.Dimensionless:
+		typ = 0.5
+	}
+	v := b.addVar(Variable{Name: un.Name + " " + name, Stream: -1, Unit: u, Param: name, Dim: dim, Delta: delta, typ: typ})
+	b.sys.unitVar[u][name] = v
+	if g != nil && finite(g.Value) {
+		val := g.Value
+		b.givenEqs = append(b.givenEqs, Equation{
+			Label: "given " + name + " of " + b.uname(u), Kind: EqGiven, Unit: u, Stream: -1, Param: name,
+			Given: g, Span: g.Span, Dim: dim, LHS: "solved", RHS: "given", Vars: []int{v},
+			eval:   func(x []float64) (float64, float64, error) { return x[v], val, nil },
+			grad:   func(_ []float64, g []float64) { g[0] = 1 },
+			direct: func([]float64, int) (float64, error) { return val, nil },
+			floor:  1e-9 * typ,
+		})
+	}
+	return v2t(v)
+}
+
+func v2t(v int) term { return term{v: v} }
+
+// ports returns the streams of a role, in the order the file lists them.
+func (b *builder) ports(u int, role string) []int {
+	var out []int
+	for _, p := range b.m.Units[u].Ports {
+		if p.Role == role {
+			out = append(out, p.Stream)
+		}
+	}
+	return out
+}
+
+func (b *builder) port(u int, role string) int {
+	if s := b.ports(u, role); len(s) > 0 {
+		return s[0]
+	}
+	return -1
+}
+
+func (b *builder) mv(s int) int { return b.sys.streamVar[s][0] }
+func (b *builder) pv(s int) int { return b.sys.streamVar[s][1] }
+func (b *builder) hv(s int) int { return b.sys.streamVar[s][2] }
+
+func (b *builder) unitEq(u int, eq Equation) {
+	eq.Unit, eq.Stream = u, -1
+	eq.Span = b.m.Units[u].Span
+	b.unitEqs = append(b.unitEqs, eq)
+}
+
+// massBalance: sum of inlet flows = sum of outlet flows.
+func (b *builder) massBalance(u int, ins, outs []int) {
+	var vars []int
+	for _, s := range outs {
+		vars = append(vars, b.mv(s))
+	}
+	for _, s := range ins {
+		vars = append(vars, b.mv(s))
+	}
+	nOut := len(outs)
+	b.unitEq(u, Equation{
+		Label: "mass balance of " + b.uname(u), Kind: EqMass, Dim: units.MassFlow, LHS: "in", RHS: "out", Vars: vars,
+		eval: func(x []float64) (float64, float64, error) {
+			var in, out float64
+			for i, v := range vars {
+				if i < nOut {
+					out += x[v]
+				} else {
+					in += x[v]
+				}
+			}
+			return in, out, nil
+		},
+		grad: func(_ []float64, g []float64) {
+			for i := range vars {
+				if i < nOut {
+					g[i] = -1
+				} else {
+					g[i] = 1
+				}
+			}
+		},
+		floor: 1e-9,
+	})
+}
+
+// energyBalance: sum m h over inlets + extraIn = sum m h over outlets + extraOut, in W. Extra
+// terms are duties, shaft powers and losses.
+func (b *builder) energyBalance(u int, label string, ins, outs []int, extraIn, extraOut []term) {
+	type flowTerm struct{ m, h int }
+	var fin, fout []flowTerm
+	var vars []int
+	seen := map[int]int{}
+	use := func(v int) {
+		if _, ok := seen[v]; !ok {
+			seen[v] = len(vars)
+			vars = append(vars, v)
+		}
+	}
+	for _, s := range outs {
+		fout = append(fout, flowTerm{b.mv(s), b.hv(s)})
+		use(b.hv(s))
+	}
+	for _, s := range ins {
+		fin = append(fin, flowTerm{b.mv(s), b.hv(s)})
+		use(b.hv(s))
+	}
+	for _, s := range outs {
+		use(b.mv(s))
+	}
+	for _, s := range ins {
+		use(b.mv(s))
+	}
+	for _, t := range append(append([]term{}, extraIn...), extraOut...) {
+		if t.v >= 0 {
+			use(t.v)
+		}
+	}
+	if label == "" {
+		label = "energy balance of " + b.uname(u)
+	}
+	b.unitEq(u, Equation{
+		Label: label, Kind: EqEnergy, Dim: units.Power, LHS: "in", RHS: "out", Vars: vars,
+		eval: func(x []float64) (float64, float64, error) {
+			var in, out float64
+			for _, f := range fin {
+				in += x[f.m] * x[f.h]
+			}
+			for _, t := range extraIn {
+				in += t.val(x)
+			}
+			for _, f := range fout {
+				out += x[f.m] * x[f.h]
+			}
+			for _, t := range extraOut {
+				out += t.val(x)
+			}
+			return in, out, nil
+		},
+		grad: func(x []float64, g []float64) {
+			clear(g)
+			for _, f := range fin {
+				g[seen[f.m]] += x[f.h]
+				g[seen[f.h]] += x[f.m]
+			}
+			for _, f := range fout {
+				g[seen[f.m]] -= x[f.h]
+				g[seen[f.h]] -= x[f.m]
+			}
+			for _, t := range extraIn {
+				if t.v >= 0 {
+					g[seen[t.v]]++
+				}
+			}
+			for _, t := range extraOut {
+				if t.v >= 0 {
+					g[seen[t.v]]--
+				}
+			}
+		},
+		floor: 1e-3,
+	})
+}
+
+// pressureDrop: p_out = p_in - dp.
+func (b *builder) pressureDrop(u int, in, out int, dp term, label string) {
+	vars := []int{b.pv(out), b.pv(in)}
+	if dp.v >= 0 {
+		vars = append(vars, dp.v)
+	}
+	if label == "" {
+		label = "pressure drop of " + b.uname(u)
+	}
+	pin, pout := b.pv(in), b.pv(out)
+	b.unitEq(u, Equation{
+		Label: label, Kind: EqPressure, Dim: units.Pressure, LHS: "outlet", RHS: "inlet less drop", Vars: vars,
+		eval: func(x []float64) (float64, float64, error) { return x[pout], x[pin] - dp.val(x), nil },
+		grad: func(_ []float64, g []float64) {
+			g[0], g[1] = 1, -1
+			if len(g) > 2 {
+				g[2] = 1
+			}
+		},
+		floor: 1,
+	})
+}
+
+// equal: x[a] = x[b] (a shared pressure or enthalpy).
+func (b *builder) equal(u int, a, c int, kind EqKind, dim units.Dim, label string) {
+	b.unitEq(u, Equation{
+		Label: label, Kind: kind, Dim: dim, LHS: b.sys.Vars[a].Name, RHS: b.sys.Vars[c].Name, Vars: []int{a, c},
+		eval:  func(x []float64) (float64, float64, error) { return x[a], x[c], nil },
+		grad:  func(_ []float64, g []float64) { g[0], g[1] = 1, -1 },
+		floor: 1,
+	})
+}
+
+// saturated: stream s leaves at quality q (0 or 1), on the extended quality.
+func (b *builder) saturated(u, s int, q float64, label string) {
+	hv, pv := b.hv(s), b.pv(s)
+	b.unitEq(u, Equation{
+		Label: label, Kind: EqState, Dim: units.Dimensionless, LHS: "quality", RHS: "required", Vars: []int{hv, pv},
+		eval: func(x []float64) (float64, float64, error) {
+			xq, err := qualityExt(x[pv], x[hv])
+			return xq, q, err
+		},
+		direct: func(x []float64, v int) (float64, error) {
+			if v != hv {
+				return math.NaN(), errNoDirect
+			}
+			st, err := if97.PX(x[pv], q)
+			return st.H, err
+		},
+		floor: 1,
+	})
+}
+
+var errNoDirect = fmt.Errorf("no direct solution")
+
+// build makes the System of a model. Structural faults (a port naming no stream, an unknown kind)
+// are reported and the unit is left out, so that the rest still solves.
+func build(m *model.Model, f formatter, relTol float64) *builder {
+	b := &builder{m: m, sys: &System{}, fmt: f, relTol: relTol,
+		blocked: make([]bool, len(m.Streams)), badUnit: make([]bool, len(m.Units))}
+	b.sys.streamVar = make([][3]int, len(m.Streams))
+	b.sys.unitVar = make([]map[string]int, len(m.Units))
+	for i, s := range m.Streams {
+		name := s.Name
+		b.sys.streamVar[i] = [3]int{
+			b.addVar(Variable{Name: name + " flow", Stream: i, Prop: model.Flow, Unit: -1, Dim: units.MassFlow, typ: 1}),
+			b.addVar(Variable{Name: name + " p", Stream: i, Prop: model.P, Unit: -1, Dim: units.Pressure, typ: 1e5}),
+			b.addVar(Variable{Name: name + " h", Stream: i, Prop: model.H, Unit: -1, Dim: units.SpecificEnergy, typ: 1e5}),
+		}
+		if s.Fluid != "" && s.Fluid != "water" {
+			b.diag(model.Error, CodeStructure, s.Span, fmt.Sprintf("stream %s: fluid %q is not supported; only water (IAPWS-IF97)", name, s.Fluid))
+			b.blocked[i] = true
+			continue
+		}
+		b.streamGivens(i)
+	}
+	for u := range m.Units {
+		b.sys.unitVar[u] = map[string]int{}
+		if !b.checkPorts(u) {
+			b.badUnit[u] = true
+			continue
+		}
+		b.checkParams(u)
+		ops[m.Units[u].Kind.Name].build(b, u)
+	}
+	b.sys.Eqs = append(append(b.sys.Eqs, b.givenEqs...), b.unitEqs...)
+	return b
+}
+
+// checkPorts verifies what the notation should already have checked, so that no model can make
+// the solver index out of range.
+func (b *builder) checkPorts(u int) bool {
+	un := b.m.Units[u]
+	if un.Kind == nil {
+		b.diag(model.Error, CodeStructure, un.Span, fmt.Sprintf("unit %s has no kind", un.Name))
+		return false
+	}
+	if _, ok := ops[un.Kind.Name]; !ok {
+		b.diag(model.Error, CodeStructure, un.Span, fmt.Sprintf("unit %s: kind %q has no balance equations", un.Name, un.Kind.Name))
+		return false
+	}
+	ok := true
+	count := map[string]int{}
+	for _, p := range un.Ports {
+		if p.Stream < 0 || p.Stream >= len(b.m.Streams) || b.m.Streams[p.Stream] == nil {
+			b.diag(model.Error, CodeStructure, p.Span, fmt.Sprintf("%s: port %s names no stream", b.uname(u), p.Role))
+			ok = false
+			continue
+		}
+		if un.Kind.Port(p.Role) == nil {
+			b.diag(model.Error, CodeStructure, p.Span, fmt.Sprintf("%s has no port %q", b.uname(u), p.Role))
+			ok = false
+			continue
+		}
+		count[p.Role]++
+	}
+	for _, ps := range un.Kind.Ports {
+		n := count[ps.Role]
+		if n == 0 || (n > 1 && !ps.Many) {
+			want := "one stream"
+			if ps.Many {
+				want = "at least one stream"
+			}
+			b.diag(model.Error, CodeStructure, un.Span, fmt.Sprintf("%s: port %s needs %s, has %d", b.uname(u), ps.Role, want, n))
+			ok = false
+		}
+	}
+	return ok
+}
+
+func (b *builder) checkParams(u int) {
+	un := b.m.Units[u]
+	for name, g := range un.Params {
+		if g == nil {
+			continue
+		}
+		if !finite(g.Value) {
+			b.diag(model.Error, CodeStructure, g.Span, fmt.Sprintf("%s %s is not a finite number", b.uname(u), name))
+			continue
+		}
+		if name == "efficiency" && !(g.Value > 0 && g.Value <= 1) {
+			b.diag(model.Error, CodeEfficiency, g.Span, fmt.Sprintf("%s efficiency %s is outside 0..1", b.uname(u), b.fmt.frac(g.Value)))
+		}
+	}
+}

@@ -1,0 +1,93 @@
+package solve
+
+import (
+	"fmt"
+	"math"
+
+	"hmb/thermo/model"
+)
+
+// overSpecified checks every equation the matching left over. Each one is redundant: all its
+// unknowns are fixed without it. Within tolerance it is a closure (reported when two or more
+// independent givens meet in it, so a closed loop's identity is not reported); beyond, a given
+// conflicts (B502) or a balance does not close (B503).
+func (s *solveRun) overSpecified() {
+	sys := s.b.sys
+	for e := range sys.Eqs {
+		if s.st.matchEq[e] >= 0 {
+			continue
+		}
+		eq := &sys.Eqs[e]
+		ready := true
+		for _, v := range eq.Vars {
+			if !s.solved[v] {
+				ready = false
+			}
+		}
+		if !ready {
+			continue
+		}
+		lhs, rhs, err := eq.eval(s.x)
+		if err != nil || !finite(lhs) || !finite(rhs) {
+			continue
+		}
+		diff := lhs - rhs
+		mag := max(math.Abs(lhs), math.Abs(rhs))
+		rel := 0.0
+		if mag > 0 {
+			rel = math.Abs(diff) / mag
+		}
+		ok := rel <= s.relTol || math.Abs(diff) <= eq.floor
+		if eq.Given != nil && eq.Given.Tol > 0 {
+			ok = math.Abs(diff) <= eq.Given.Tol
+		}
+		if eq.Unit >= 0 && eq.Kind != EqGiven {
+			ur := &s.res.Units[eq.Unit]
+			switch eq.Kind {
+			case EqMass:
+				ur.MassClosure = rel
+			case EqEnergy:
+				ur.EnergyClosure = rel
+			}
+		}
+		givens := s.st.determining(sys, e)
+		var rel2 []model.Related
+		var by []string
+		for _, g := range givens {
+			rel2 = append(rel2, related(sys.Eqs[g].Span, sys.Eqs[g].Label))
+			by = append(by, sys.Eqs[g].Label)
+		}
+		byText := ""
+		if len(by) > 0 {
+			byText = " (fixed by " + andList(by) + ")"
+		}
+		switch {
+		case ok && eq.Kind == EqGiven:
+			s.diag(model.Info, CodeClosure, eq.Span, fmt.Sprintf("%s is redundant and agrees: %s given, %s from the rest%s (%s)",
+				eq.Label, s.value(eq, rhs), s.value(eq, lhs), byText, pct(rel)), rel2...)
+		case ok && (len(givens) >= 2 && (eq.Kind == EqMass || eq.Kind == EqEnergy)):
+			s.diag(model.Info, CodeClosure, eq.Span, fmt.Sprintf("%s closes: %s %s, %s %s (%s)",
+				eq.Label, eq.LHS, s.value(eq, lhs), eq.RHS, s.value(eq, rhs), pct(rel)), rel2...)
+		case ok:
+		case eq.Kind == EqGiven:
+			s.diag(model.Error, CodeConflict, eq.Span, fmt.Sprintf("%s conflicts: %s given, but %s follows from the rest%s; the difference is %s (%s)",
+				eq.Label, s.value(eq, rhs), s.value(eq, lhs), byText, s.f.dq(eq.Dim, diff), pct(rel)), rel2...)
+		default:
+			s.diag(model.Error, CodeNotClosed, eq.Span, fmt.Sprintf("%s does not close: %s %s, %s %s (%s)",
+				eq.Label, eq.LHS, s.value(eq, lhs), eq.RHS, s.value(eq, rhs), pct(rel)), rel2...)
+		}
+	}
+}
+
+// value writes one side of an equation in the file's units.
+func (s *solveRun) value(eq *Equation, v float64) string {
+	if eq.Given != nil && eq.Param != "" {
+		if spec := s.m.Units[eq.Unit].Kind.Param(eq.Param); spec != nil && spec.Delta {
+			return s.f.dq(eq.Dim, v)
+		}
+	}
+	if eq.Kind == EqPressure || eq.Kind == EqState && eq.Dim != 0 {
+		return s.f.q(eq.Dim, v)
+	}
+	return s.f.q(eq.Dim, v)
+}

@@ -1,0 +1,32 @@
+// Package solve is the equation-oriented heat and material balance solver: from a model.Model it
+// finds every stream's state, closes every balance, and reports with a position everything that is
+// missing, conflicting or physically impossible.
+//
+// # Unknowns and equations
+//
+// Each stream contributes three unknowns: mass flow m (kg/s), pressure p (Pa) and specific
+// enthalpy h (J/kg). Temperature, entropy and quality are derived from (p, h) by IAPWS-IF97.
+// A unit parameter that a balance can produce (a heater's duty, a turbine's power or efficiency, a
+// valve's pressure drop) is an unknown too; a given parameter adds the equation "unknown = given".
+// Parameters that only modify a balance (heat_loss, and dp of every kind but the valve) are
+// constants and default to zero when not given.
+//
+// Every given is one equation (m = given, p = given, h = given, T(p,h) = given, s(p,h) = given,
+// x(p,h) = given) and every unit adds the equations documented in its own file (mixer.go,
+// valve.go, ...). Quality equations use the quality extended outside the dome,
+// x = (h - h'(p)) / (h”(p) - h'(p)), so that Newton sees a smooth function.
+//
+// # Method
+//
+// The system is analysed structurally before any number is computed: a maximum bipartite
+// matching of equations to unknowns (Dulmage and Mendelsohn, 1958) shows unknowns that no
+// equation can fix (under-specified: reported with the givens that would fix them) and equations
+// left over (over-specified: checked after solving, as a closure when they hold and as a conflict
+// when they do not). The matched graph is split into strongly connected blocks (Tarjan, 1972) and
+// the blocks are solved in order by damped Newton, with bounded iterations and a wall-clock limit.
+// Most blocks are one equation in one unknown; a given T, s or x with a known pressure is inverted
+// directly by IF97.
+//
+// Givens are tried for the matching before unit equations, so when a balance is redundant it is
+// the balance, not a given, that is left over and reported as a closure.
+package solve

@@ -1,0 +1,186 @@
+package solve
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+)
+
+// Newton settings. A block converges when every scaled residual is below tolScaled; the scale
+// of an equation is the larger magnitude of its two sides, so this is a relative error.
+const (
+	tolScaled   = 1e-9
+	maxHalvings = 30
+)
+
+// blockError says why a block was not solved.
+type blockError struct {
+	reason string
+	prop   error // the property library's error, when that was the cause
+}
+
+func (e *blockError) Error() string {
+	if e.prop != nil {
+		return e.reason + ": " + propErr(e.prop)
+	}
+	return e.reason
+}
+
+var errTimeout = errors.New("time limit reached")
+
+type newton struct {
+	ctx     context.Context
+	sys     *System
+	x       []float64
+	solved  []bool
+	maxIter int
+	guess   func(v int) float64
+}
+
+// solveBlock finds the unknowns vars so that the equations eqs hold, the other unknowns fixed.
+func (n *newton) solveBlock(eqs, vars []int) error {
+	sys := n.sys
+	if len(eqs) == 1 && sys.Eqs[eqs[0]].direct != nil {
+		v, err := sys.Eqs[eqs[0]].direct(n.x, vars[0])
+		if err == nil && finite(v) {
+			n.x[vars[0]] = v
+			return nil
+		}
+		if err != errNoDirect {
+			if err == nil {
+				err = errNotFinite
+			}
+			return &blockError{reason: "no state satisfies " + sys.Eqs[eqs[0]].Label, prop: err}
+		}
+	}
+	for _, v := range vars {
+		n.x[v] = n.guess(v)
+	}
+	k := len(eqs)
+	r := make([]float64, k)
+	scale := make([]float64, k)
+	jac := make([]float64, k*k)
+	dx := make([]float64, k)
+	x0 := make([]float64, k)
+	col := map[int]int{}
+	for j, v := range vars {
+		col[v] = j
+	}
+	eval := func(out []float64, keepScale bool) (float64, error) {
+		worst := 0.0
+		for i, e := range eqs {
+			res, sc, err := sys.Residual(e, n.x)
+			if err != nil {
+				return math.Inf(1), err
+			}
+			if !keepScale {
+				scale[i] = sc
+			}
+			out[i] = res / scale[i]
+			worst = max(worst, math.Abs(out[i]))
+		}
+		return worst, nil
+	}
+	norm, err := eval(r, false)
+	if err != nil {
+		return &blockError{reason: "cannot evaluate " + sys.Eqs[eqs[0]].Label + " at the first guess", prop: err}
+	}
+	g := make([]float64, 0, 8)
+	for it := 0; ; it++ {
+		if norm <= tolScaled {
+			return nil
+		}
+		if it >= n.maxIter {
+			return &blockError{reason: fmt.Sprintf("no convergence in %d iterations (scaled residual %.2g)", n.maxIter, norm)}
+		}
+		if n.ctx.Err() != nil {
+			return errTimeout
+		}
+		clear(jac)
+		for i, e := range eqs {
+			eq := &sys.Eqs[e]
+			g = g[:0]
+			for range eq.Vars {
+				g = append(g, 0)
+			}
+			sys.gradient(e, n.x, g)
+			for a, v := range eq.Vars {
+				if j, ok := col[v]; ok {
+					jac[i*k+j] += g[a] / scale[i]
+				}
+			}
+		}
+		for i := range r {
+			dx[i] = -r[i]
+		}
+		if !luSolve(jac, dx, k) {
+			return &blockError{reason: "the equations do not fix the unknowns here (singular Jacobian)"}
+		}
+		for j, v := range vars {
+			x0[j] = n.x[v]
+		}
+		t := 1.0
+		accepted := false
+		for h := 0; h < maxHalvings; h++ {
+			for j, v := range vars {
+				n.x[v] = x0[j] + t*dx[j]
+			}
+			nn, err := eval(r, true)
+			if err == nil && nn < norm*(1-1e-4*t) || err == nil && nn <= tolScaled {
+				norm, _ = eval(r, false)
+				accepted = true
+				break
+			}
+			t /= 2
+		}
+		if !accepted {
+			for j, v := range vars {
+				n.x[v] = x0[j]
+			}
+			return &blockError{reason: fmt.Sprintf("no step reduces the residual (scaled residual %.2g)", norm)}
+		}
+	}
+}
+
+// luSolve solves a x = b in place (b becomes x) by Gaussian elimination with partial pivoting.
+func luSolve(a, b []float64, n int) bool {
+	for c := 0; c < n; c++ {
+		p := c
+		for r := c + 1; r < n; r++ {
+			if math.Abs(a[r*n+c]) > math.Abs(a[p*n+c]) {
+				p = r
+			}
+		}
+		if !(math.Abs(a[p*n+c]) > 1e-300) || !finite(a[p*n+c]) {
+			return false
+		}
+		if p != c {
+			for j := 0; j < n; j++ {
+				a[p*n+j], a[c*n+j] = a[c*n+j], a[p*n+j]
+			}
+			b[p], b[c] = b[c], b[p]
+		}
+		for r := c + 1; r < n; r++ {
+			f := a[r*n+c] / a[c*n+c]
+			if f == 0 {
+				continue
+			}
+			for j := c; j < n; j++ {
+				a[r*n+j] -= f * a[c*n+j]
+			}
+			b[r] -= f * b[c]
+		}
+	}
+	for c := n - 1; c >= 0; c-- {
+		s := b[c]
+		for j := c + 1; j < n; j++ {
+			s -= a[c*n+j] * b[j]
+		}
+		b[c] = s / a[c*n+c]
+		if !finite(b[c]) {
+			return false
+		}
+	}
+	return true
+}

@@ -1,0 +1,440 @@
+package solve
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+	"time"
+
+	"hmb/thermo/if97"
+	"hmb/thermo/model"
+)
+
+// Options bound the work of Solve.
+type Options struct {
+	MaxIter int           // Newton iterations per block; 0 means 50
+	Timeout time.Duration // wall-clock limit of the whole solve; 0 means 5 s
+}
+
+// ProvKind says where a solved value came from.
+type ProvKind uint8
+
+const (
+	ProvNone     ProvKind = iota // not solved
+	ProvGiven                    // stated in the file
+	ProvEquation                 // fixed by an equation of a unit (or by a given of another property)
+	ProvDerived                  // computed by IAPWS-IF97 from the stream's p and h
+)
+
+// Provenance tells, for hover, which given or which equation produced a value.
+type Provenance struct {
+	Kind  ProvKind
+	Label string     // "given S3 T", "energy balance of mixer DA", "IAPWS-IF97 from p and h"
+	Span  model.Span // the given, or the unit whose equation it is
+	Unit  int        // index into Model.Units, or -1
+}
+
+// StreamResult is the solved state of one stream.
+type StreamResult struct {
+	Solved bool       // flow and state both found
+	State  if97.State // valid when HasState
+	// HasState is set when p and h were found, even if the flow was not.
+	HasState bool
+	M        float64 // mass flow, kg/s; NaN when not solved
+	Source   [model.NumProps]Provenance
+}
+
+// UnitResult holds a unit's duties and balances. Fields that do not apply, or could not be
+// computed, are NaN.
+type UnitResult struct {
+	Q          float64 // duty in the kind's own sense: heat added (heater, boiler), removed (cooler), passed hot to cold (exchanger), W
+	W          float64 // shaft power: produced by a turbine, absorbed by a pump, W
+	Sgen       float64 // entropy generation, W/K (see entropy.go for the boundary temperatures)
+	Efficiency float64 // isentropic (turbine, pump) or boiler efficiency
+	Fuel       float64 // boiler fuel heat input, W
+	// Flows through the unit: mass in kg/s; energy in W (sum of m h plus heat and work crossing
+	// the boundary on that side).
+	MassIn, MassOut, EnergyIn, EnergyOut float64
+	// Relative closure |in - out| / max(|in|, |out|) of a balance that was redundant (every term
+	// fixed without it); NaN when the balance was used to solve.
+	MassClosure, EnergyClosure float64
+}
+
+// Result is everything Solve found.
+type Result struct {
+	Streams []StreamResult // same order as Model.Streams
+	Units   []UnitResult   // same order as Model.Units
+	Diags   []model.Diagnostic
+	// System and X expose the equations and the solution (NaN where unsolved) for later stages
+	// such as uncertainty propagation.
+	System *System
+	X      []float64
+}
+
+// Solve finds every stream's state and every unit's duty, and reports what is missing,
+// conflicting or impossible. It never panics on a well-typed model and returns within
+// opt.Timeout (plus one property evaluation).
+func Solve(ctx context.Context, m *model.Model, opt Options) *Result {
+	if opt.MaxIter <= 0 {
+		opt.MaxIter = 50
+	}
+	if opt.Timeout <= 0 {
+		opt.Timeout = 5 * time.Second
+	}
+	ctx, cancel := context.WithTimeout(ctx, opt.Timeout)
+	defer cancel()
+	res := &Result{}
+	if m == nil {
+		return res
+	}
+	if d, ok := validate(m); !ok {
+		res.Diags = d
+		res.Streams = make([]StreamResult, len(m.Streams))
+		res.Units = make([]UnitResult, len(m.Units))
+		for i := range res.Streams {
+			res.Streams[i].M = math.NaN()
+		}
+		for i := range res.Units {
+			res.Units[i] = nanUnit()
+		}
+		return res
+	}
+	relTol := m.Tolerance
+	if !(relTol > 0) {
+		relTol = 0.001
+	}
+	s := &solveRun{m: m, res: res, ctx: ctx, opt: opt, relTol: relTol, f: formatter{sys: m.Display, atm: m.Atm}}
+	s.run()
+	return res
+}
+
+// validate rejects what would make the solver index nil: the notation never builds such a model.
+func validate(m *model.Model) ([]model.Diagnostic, bool) {
+	var d []model.Diagnostic
+	bad := func(msg string) {
+		d = append(d, model.Diagnostic{Severity: model.Error, Code: CodeStructure, Message: msg})
+	}
+	for i, s := range m.Streams {
+		if s == nil {
+			bad(fmt.Sprintf("stream %d is missing", i))
+		}
+	}
+	for i, u := range m.Units {
+		if u == nil {
+			bad(fmt.Sprintf("unit %d is missing", i))
+		}
+	}
+	for i, e := range m.Expects {
+		if e == nil {
+			bad(fmt.Sprintf("expectation %d is missing", i))
+		}
+	}
+	return d, len(d) == 0
+}
+
+func nanUnit() UnitResult {
+	n := math.NaN()
+	return UnitResult{Q: n, W: n, Sgen: n, Efficiency: n, Fuel: n, MassIn: n, MassOut: n, EnergyIn: n, EnergyOut: n, MassClosure: n, EnergyClosure: n}
+}
+
+type solveRun struct {
+	m      *model.Model
+	res    *Result
+	ctx    context.Context
+	opt    Options
+	relTol float64
+	f      formatter
+	b      *builder
+	st     *structure
+	x      []float64
+	solved []bool
+	nbr    [][]int // streams sharing a unit with each stream
+	diags  []model.Diagnostic
+}
+
+func (s *solveRun) run() {
+	s.b = build(s.m, s.f, s.relTol)
+	sys := s.b.sys
+	s.res.System = sys
+	s.st = analyse(sys, len(s.b.givenEqs))
+	s.x = make([]float64, len(sys.Vars))
+	for i := range s.x {
+		s.x[i] = math.NaN()
+	}
+	s.solved = make([]bool, len(sys.Vars))
+	s.neighbours()
+	s.underSpecified()
+	s.solveBlocks()
+	s.res.X = s.x
+	s.streamResults()
+	s.res.Units = make([]UnitResult, len(s.m.Units))
+	for i := range s.res.Units {
+		s.res.Units[i] = nanUnit()
+	}
+	s.overSpecified()
+	s.unitResults()
+	s.provenance()
+	s.expectations()
+	diags := append(s.b.diags, s.diags...)
+	sort.SliceStable(diags, func(i, j int) bool { return diags[i].Span.Start < diags[j].Span.Start })
+	s.res.Diags = diags
+}
+
+// diags collected after building go through solveRun.
+func (s *solveRun) diag(sev model.Severity, code string, span model.Span, msg string, rel ...model.Related) {
+	s.diags = append(s.diags, model.Diagnostic{Span: span, Severity: sev, Code: code, Message: msg, Related: rel})
+}
+
+func (s *solveRun) neighbours() {
+	s.nbr = make([][]int, len(s.m.Streams))
+	for u, un := range s.m.Units {
+		if s.b.badUnit[u] {
+			continue
+		}
+		for _, p := range un.Ports {
+			for _, q := range un.Ports {
+				if p.Stream != q.Stream {
+					s.nbr[p.Stream] = append(s.nbr[p.Stream], q.Stream)
+				}
+			}
+		}
+	}
+}
+
+// guess is the first Newton iterate of an unknown: the same property of a solved neighbour
+// stream when there is one, else a typical value.
+func (s *solveRun) guess(v int) float64 {
+	vr := &s.b.sys.Vars[v]
+	if vr.Stream >= 0 {
+		for _, n := range s.nbr[vr.Stream] {
+			w := s.b.sys.StreamVar(n, vr.Prop)
+			if s.solved[w] {
+				return s.x[w]
+			}
+		}
+		switch vr.Prop {
+		case model.Flow:
+			return 1
+		case model.P:
+			return 1e6
+		}
+		return 1e6 // J/kg: liquid at every pressure, a safe start for IF97
+	}
+	switch vr.Param {
+	case "efficiency":
+		return 0.8
+	}
+	return 0
+}
+
+func (s *solveRun) solveBlocks() {
+	sys := s.b.sys
+	nt := &newton{ctx: s.ctx, sys: sys, x: s.x, solved: s.solved, maxIter: s.opt.MaxIter, guess: s.guess}
+	var vars []int
+	for _, blk := range s.st.blocks {
+		if s.ctx.Err() != nil {
+			s.diag(model.Error, CodeTimeout, model.Span{}, fmt.Sprintf("solving stopped after %s: %v; the values shown are incomplete", s.opt.Timeout, s.ctx.Err()))
+			return
+		}
+		vars = vars[:0]
+		for _, e := range blk {
+			vars = append(vars, s.st.matchEq[e])
+		}
+		ready := true
+		for _, e := range blk {
+			for _, v := range sys.Eqs[e].Vars {
+				if !s.solved[v] && !contains(vars, v) {
+					ready = false
+				}
+			}
+		}
+		if !ready {
+			continue // an unknown it needs was not found; that cause is reported already
+		}
+		err := nt.solveBlock(blk, vars)
+		if err == errTimeout {
+			s.diag(model.Error, CodeTimeout, model.Span{}, fmt.Sprintf("solving stopped after %s; the values shown are incomplete", s.opt.Timeout))
+			return
+		}
+		if err != nil {
+			for _, v := range vars {
+				s.x[v] = math.NaN()
+			}
+			s.blockFailed(blk, vars, err)
+			continue
+		}
+		for _, v := range vars {
+			s.solved[v] = true
+		}
+	}
+}
+
+func contains(s []int, v int) bool {
+	for _, w := range s {
+		if w == v {
+			return true
+		}
+	}
+	return false
+}
+
+func (s *solveRun) blockFailed(blk, vars []int, err error) {
+	sys := s.b.sys
+	var names, labels []string
+	for _, v := range vars {
+		names = append(names, sys.Vars[v].Name)
+	}
+	var rel []model.Related
+	for k, e := range blk {
+		labels = append(labels, sys.Eqs[e].Label)
+		if k > 0 {
+			rel = append(rel, related(sys.Eqs[e].Span, sys.Eqs[e].Label))
+		}
+	}
+	code := CodeNoConvergence
+	if be, ok := err.(*blockError); ok && be.prop != nil && len(blk) == 1 && sys.Eqs[blk[0]].Kind == EqGiven {
+		code = CodeOutsideIF97
+	}
+	eq := &sys.Eqs[blk[0]]
+	s.diag(model.Error, code, eq.Span, fmt.Sprintf("cannot solve %s from %s: %v", andList(names), andList(labels), err), rel...)
+}
+
+// streamResults evaluates each stream's state from its solved p and h.
+func (s *solveRun) streamResults() {
+	sys := s.b.sys
+	s.res.Streams = make([]StreamResult, len(s.m.Streams))
+	for i, st := range s.m.Streams {
+		r := &s.res.Streams[i]
+		r.M = math.NaN()
+		if v := sys.StreamVar(i, model.Flow); s.solved[v] {
+			r.M = s.x[v]
+			if r.M < 0 {
+				s.diag(model.Warning, CodeNegativeFlow, st.Span, fmt.Sprintf("%s: solved flow %s is negative: the stream runs against its stated direction", st.Name, s.f.q(model.Flow.Dim(), r.M)))
+			}
+		}
+		pv, hv := sys.StreamVar(i, model.P), sys.StreamVar(i, model.H)
+		if !s.solved[pv] || !s.solved[hv] {
+			continue
+		}
+		state, err := statePH(s.x[pv], s.x[hv])
+		if err != nil {
+			s.diag(model.Error, CodeOutsideIF97, st.Span, fmt.Sprintf("%s: solved p %s and h %s are outside IAPWS-IF97: %s",
+				st.Name, s.f.q(model.P.Dim(), s.x[pv]), s.f.q(model.H.Dim(), s.x[hv]), propErr(err)))
+			continue
+		}
+		r.State, r.HasState = state, true
+		r.Solved = !math.IsNaN(r.M)
+	}
+}
+
+// underSpecified reports unknowns no equation fixes, grouped by the set of givens that would fix
+// them. A model the notation could not read fully is not reported: it would only echo its errors.
+func (s *solveRun) underSpecified() {
+	if s.m.Incomplete {
+		return
+	}
+	sys := s.b.sys
+	quiet := make([]bool, len(s.m.Streams))
+	copy(quiet, s.b.blocked)
+	for u, un := range s.m.Units {
+		if s.b.badUnit[u] {
+			for _, p := range un.Ports {
+				if p.Stream >= 0 && p.Stream < len(quiet) {
+					quiet[p.Stream] = true
+				}
+			}
+		}
+	}
+	mark := make([]int, len(sys.Vars))
+	group := make([]int, len(sys.Vars)) // unknown -> group number + 1 of the search that reached it
+	stamp := 0
+	type grp struct {
+		missing []int
+		cands   []int
+	}
+	var groups []*grp
+	for v := range sys.Vars {
+		if s.st.matchVar[v] >= 0 {
+			continue
+		}
+		if st := sys.Vars[v].Stream; st >= 0 && quiet[st] {
+			continue
+		}
+		if g := group[v]; g > 0 {
+			groups[g-1].missing = append(groups[g-1].missing, v)
+			continue
+		}
+		stamp++
+		reach := s.st.underdetermined(sys, v, mark, stamp)
+		g := &grp{missing: []int{v}, cands: reach}
+		groups = append(groups, g)
+		for _, w := range reach {
+			if group[w] == 0 {
+				group[w] = len(groups)
+			}
+		}
+	}
+	for _, g := range groups {
+		first := sys.Vars[g.missing[0]]
+		span := model.Span{}
+		if first.Stream >= 0 {
+			span = s.m.Streams[first.Stream].Span
+		} else {
+			span = s.m.Units[first.Unit].Span
+		}
+		var names []string
+		seen := map[string]bool{}
+		for _, c := range g.cands {
+			n := s.candName(c)
+			if n == "" || seen[n] {
+				continue
+			}
+			seen[n] = true
+			names = append(names, n)
+		}
+		more := ""
+		if len(names) > 10 {
+			more = fmt.Sprintf(" (and %d more)", len(names)-10)
+			names = names[:10]
+		}
+		var rel []model.Related
+		var missing []string
+		for k, v := range g.missing {
+			missing = append(missing, sys.Vars[v].Name)
+			if k > 0 {
+				vr := sys.Vars[v]
+				sp := model.Span{}
+				if vr.Stream >= 0 {
+					sp = s.m.Streams[vr.Stream].Span
+				} else {
+					sp = s.m.Units[vr.Unit].Span
+				}
+				rel = append(rel, related(sp, vr.Name+" is not fixed either"))
+			}
+		}
+		var msg string
+		if len(g.missing) == 1 {
+			msg = fmt.Sprintf("under-specified: nothing fixes %s; specify one of: %s%s", missing[0], strings.Join(names, ", "), more)
+		} else {
+			msg = fmt.Sprintf("under-specified by %d values: nothing fixes %s; specify %d of: %s%s", len(missing), andList(missing), len(missing), strings.Join(names, ", "), more)
+		}
+		s.diag(model.Error, CodeUnderSpecified, span, msg, rel...)
+	}
+}
+
+// candName names an unknown as something a file can give: a stream's h may be fixed by T, h, s
+// or x, so it is offered as "T or h".
+func (s *solveRun) candName(v int) string {
+	vr := s.b.sys.Vars[v]
+	if vr.Stream >= 0 {
+		if s.b.blocked[vr.Stream] {
+			return ""
+		}
+		if vr.Prop == model.H {
+			return s.m.Streams[vr.Stream].Name + " T or h"
+		}
+	}
+	return vr.Name
+}

@@ -1,0 +1,182 @@
+package solve
+
+// structure is the matching of equations to unknowns and the order of the blocks it implies.
+type structure struct {
+	matchEq  []int   // equation -> unknown it determines, or -1 (left over: over-specified)
+	matchVar []int   // unknown -> equation that determines it, or -1 (under-specified)
+	varEqs   [][]int // unknown -> equations touching it
+	blocks   [][]int // strongly connected groups of matched equations, in solving order
+}
+
+// analyse matches equations to unknowns (maximum bipartite matching by augmenting paths, Kuhn
+// 1955), givens before unit equations so that a redundant balance rather than a given is left
+// over, then orders the matched equations into blocks (Tarjan 1972, strongly connected
+// components of "equation e needs the unknown that equation f determines").
+func analyse(sys *System, nGiven int) *structure {
+	nv, ne := len(sys.Vars), len(sys.Eqs)
+	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), varEqs: make([][]int, nv)}
+	for i := range st.matchEq {
+		st.matchEq[i] = -1
+	}
+	for i := range st.matchVar {
+		st.matchVar[i] = -1
+	}
+	for e := range sys.Eqs {
+		for _, v := range sys.Eqs[e].Vars {
+			st.varEqs[v] = append(st.varEqs[v], e)
+		}
+	}
+	seen := make([]int, nv)
+	stamp := 0
+	var try func(e int) bool
+	try = func(e int) bool {
+		for _, v := range sys.Eqs[e].Vars {
+			if seen[v] == stamp {
+				continue
+			}
+			seen[v] = stamp
+			if st.matchVar[v] < 0 || try(st.matchVar[v]) {
+				st.matchVar[v], st.matchEq[e] = e, v
+				return true
+			}
+		}
+		return false
+	}
+	for _, g := range [][2]int{{0, nGiven}, {nGiven, ne}} {
+		for e := g[0]; e < g[1]; e++ { // cheap pass: a free unknown at hand
+			for _, v := range sys.Eqs[e].Vars {
+				if st.matchVar[v] < 0 {
+					st.matchVar[v], st.matchEq[e] = e, v
+					break
+				}
+			}
+		}
+		for e := g[0]; e < g[1]; e++ {
+			if st.matchEq[e] < 0 {
+				stamp++
+				try(e)
+			}
+		}
+	}
+	st.blocks = st.order(sys)
+	return st
+}
+
+// order runs Tarjan's algorithm iteratively (chains of thousands of units would otherwise nest
+// as deep). Tarjan emits a component only after every component it reaches, which is exactly
+// the order in which they can be solved.
+func (st *structure) order(sys *System) [][]int {
+	ne := len(sys.Eqs)
+	index := make([]int, ne)
+	low := make([]int, ne)
+	onStack := make([]bool, ne)
+	for i := range index {
+		index[i] = -1
+	}
+	var stack []int
+	var blocks [][]int
+	next := 0
+	type frame struct{ e, k int }
+	succ := func(e, k int) (int, bool) { // the k-th dependency of e
+		vars := sys.Eqs[e].Vars
+		if k >= len(vars) {
+			return 0, false
+		}
+		v := vars[k]
+		if v == st.matchEq[e] || st.matchVar[v] < 0 {
+			return -1, true
+		}
+		return st.matchVar[v], true
+	}
+	for root := 0; root < ne; root++ {
+		if st.matchEq[root] < 0 || index[root] >= 0 {
+			continue
+		}
+		call := []frame{{root, 0}}
+		index[root], low[root] = next, next
+		next++
+		stack = append(stack, root)
+		onStack[root] = true
+		for len(call) > 0 {
+			f := &call[len(call)-1]
+			w, ok := succ(f.e, f.k)
+			if ok {
+				f.k++
+				if w < 0 {
+					continue
+				}
+				if index[w] < 0 {
+					index[w], low[w] = next, next
+					next++
+					stack = append(stack, w)
+					onStack[w] = true
+					call = append(call, frame{w, 0})
+				} else if onStack[w] {
+					low[f.e] = min(low[f.e], index[w])
+				}
+				continue
+			}
+			e := f.e
+			call = call[:len(call)-1]
+			if len(call) > 0 {
+				p := call[len(call)-1].e
+				low[p] = min(low[p], low[e])
+			}
+			if low[e] == index[e] {
+				var blk []int
+				for {
+					w := stack[len(stack)-1]
+					stack = stack[:len(stack)-1]
+					onStack[w] = false
+					blk = append(blk, w)
+					if w == e {
+						break
+					}
+				}
+				blocks = append(blocks, blk)
+			}
+		}
+	}
+	return blocks
+}
+
+// underdetermined returns the unknowns reachable from the unmatched unknown u by alternating
+// paths (u, an equation touching it, the unknown that equation determines, ...), nearest first:
+// giving any one of them frees the matching to fix u.
+func (st *structure) underdetermined(sys *System, u int, mark []int, stamp int) []int {
+	queue := []int{u}
+	mark[u] = stamp
+	for k := 0; k < len(queue); k++ {
+		v := queue[k]
+		for _, e := range st.varEqs[v] {
+			w := st.matchEq[e]
+			if w >= 0 && mark[w] != stamp {
+				mark[w] = stamp
+				queue = append(queue, w)
+			}
+		}
+	}
+	return queue
+}
+
+// determining returns the givens that fix the unknowns of equation e through the matching:
+// the other side of a conflict.
+func (st *structure) determining(sys *System, e int) []int {
+	seenE := map[int]bool{e: true}
+	queue := []int{e}
+	var givens []int
+	for k := 0; k < len(queue) && len(givens) < 8; k++ {
+		for _, v := range sys.Eqs[queue[k]].Vars {
+			f := st.matchVar[v]
+			if f < 0 || seenE[f] {
+				continue
+			}
+			seenE[f] = true
+			queue = append(queue, f)
+			if sys.Eqs[f].Kind == EqGiven {
+				givens = append(givens, f)
+			}
+		}
+	}
+	return givens
+}

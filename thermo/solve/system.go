@@ -1,0 +1,182 @@
+package solve
+
+import (
+	"math"
+
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// Variable is one unknown of the system: a stream's m, p or h, or a unit parameter.
+type Variable struct {
+	Name   string     // as a message names it: "S3 flow", "S3 p", "H1 duty"
+	Stream int        // index into Model.Streams, or -1
+	Prop   model.Prop // Flow, P or H for a stream unknown
+	Unit   int        // index into Model.Units, or -1
+	Param  string     // parameter name for a unit unknown
+	Dim    units.Dim  // for messages
+	Delta  bool       // shown as a difference (pressure drop)
+	typ    float64    // typical magnitude: finite-difference steps and first guesses
+}
+
+// EqKind classifies an equation for messages and for weighting in a later reconciliation.
+type EqKind uint8
+
+const (
+	EqGiven    EqKind = iota // a stated value of a stream property or unit parameter
+	EqMass                   // mass balance
+	EqEnergy                 // energy balance
+	EqPressure               // pressure relation (drop, equality)
+	EqState                  // equal state or saturation condition
+	EqWork                   // shaft power or isentropic efficiency
+	EqFuel                   // boiler duty = efficiency x fuel
+)
+
+// Equation is one scalar relation lhs(x) = rhs(x). Its residual is lhs - rhs in SI units of Dim.
+// Splitting the two sides lets a balance that does not close say "in 25.31, out 25.10".
+type Equation struct {
+	Label  string // "energy balance of mixer DA", "given S3 T"
+	Kind   EqKind
+	Unit   int        // index into Model.Units, or -1
+	Stream int        // index into Model.Streams for a stream given, or -1
+	Prop   model.Prop // the property of a stream given
+	Param  string     // the parameter of a unit given
+	Given  *model.Given
+	Span   model.Span
+	Dim    units.Dim // dimension of lhs and rhs
+	LHS    string    // names of the two sides for a closure message ("in", "out")
+	RHS    string
+	Vars   []int // unknowns the equation touches, in the order the matching prefers them
+
+	eval   func(x []float64) (lhs, rhs float64, err error)
+	grad   func(x []float64, g []float64) // d(lhs-rhs)/d(Vars[i]); nil: finite differences
+	direct func(x []float64, v int) (float64, error)
+	floor  float64 // scale below which the residual is not scaled further
+}
+
+// System is the whole set of unknowns and equations built from a model. It is kept explicit so
+// that a later stage can propagate measurement uncertainties and reconcile redundant givens by
+// weighted least squares on the same residuals and Jacobian.
+type System struct {
+	Vars []Variable
+	Eqs  []Equation
+	// streamVar[i] holds the indices of stream i's m, p and h unknowns.
+	streamVar [][3]int
+	unitVar   []map[string]int
+}
+
+// StreamVar returns the index of stream i's unknown for prop (Flow, P or H), or -1.
+func (s *System) StreamVar(i int, prop model.Prop) int {
+	if i < 0 || i >= len(s.streamVar) {
+		return -1
+	}
+	switch prop {
+	case model.Flow:
+		return s.streamVar[i][0]
+	case model.P:
+		return s.streamVar[i][1]
+	case model.H:
+		return s.streamVar[i][2]
+	}
+	return -1
+}
+
+// UnitVar returns the index of unit u's unknown parameter, or -1.
+func (s *System) UnitVar(u int, param string) int {
+	if u < 0 || u >= len(s.unitVar) {
+		return -1
+	}
+	if v, ok := s.unitVar[u][param]; ok {
+		return v
+	}
+	return -1
+}
+
+// Residual evaluates equation e at x: lhs - rhs in SI, and the scale it is judged against.
+func (s *System) Residual(e int, x []float64) (r, scale float64, err error) {
+	eq := &s.Eqs[e]
+	l, rr, err := eq.eval(x)
+	if err != nil {
+		return math.NaN(), math.NaN(), err
+	}
+	if !finite(l) || !finite(rr) {
+		return math.NaN(), math.NaN(), errNotFinite
+	}
+	return l - rr, max(math.Abs(l), math.Abs(rr), eq.floor), nil
+}
+
+// Residuals fills r (len(Eqs)) with lhs - rhs in SI for every equation at x; NaN where an
+// equation cannot be evaluated (a state outside IF97).
+func (s *System) Residuals(x, r []float64) {
+	for e := range s.Eqs {
+		v, _, err := s.Residual(e, x)
+		if err != nil {
+			v = math.NaN()
+		}
+		r[e] = v
+	}
+}
+
+// Entry is one nonzero of a sparse matrix.
+type Entry struct {
+	Row, Col int
+	Val      float64
+}
+
+// Jacobian returns the nonzeros of d(residual)/d(unknown) at x: analytic for the linear and
+// bilinear balances, central differences for equations through IF97. Entries that cannot be
+// evaluated are NaN.
+func (s *System) Jacobian(x []float64) []Entry {
+	var out []Entry
+	g := make([]float64, 0, 8)
+	for e := range s.Eqs {
+		eq := &s.Eqs[e]
+		g = g[:0]
+		for range eq.Vars {
+			g = append(g, 0)
+		}
+		s.gradient(e, x, g)
+		for i, v := range eq.Vars {
+			out = append(out, Entry{Row: e, Col: v, Val: g[i]})
+		}
+	}
+	return out
+}
+
+// gradient fills g with the derivatives of equation e's raw residual with respect to its Vars.
+func (s *System) gradient(e int, x []float64, g []float64) {
+	eq := &s.Eqs[e]
+	if eq.grad != nil {
+		eq.grad(x, g)
+		return
+	}
+	for i, v := range eq.Vars {
+		x0 := x[v]
+		d := 1e-6 * max(math.Abs(x0), s.Vars[v].typ)
+		x[v] = x0 + d
+		rp, _, e1 := s.Residual(e, x)
+		x[v] = x0 - d
+		rm, _, e2 := s.Residual(e, x)
+		x[v] = x0
+		switch {
+		case e1 == nil && e2 == nil:
+			g[i] = (rp - rm) / (2 * d)
+		case e1 == nil:
+			r0, _, err := s.Residual(e, x)
+			if err != nil {
+				g[i] = math.NaN()
+			} else {
+				g[i] = (rp - r0) / d
+			}
+		case e2 == nil:
+			r0, _, err := s.Residual(e, x)
+			if err != nil {
+				g[i] = math.NaN()
+			} else {
+				g[i] = (r0 - rm) / d
+			}
+		default:
+			g[i] = math.NaN()
+		}
+	}
+}

@@ -1,0 +1,68 @@
+package solve
+
+import (
+	"fmt"
+	"math"
+
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
+
+// Turbine: adiabatic expansion producing shaft power.
+//
+//	mass:       m_in = m_out
+//	energy:     m h_in = m h_out + power
+//	efficiency: h_in - h_out = efficiency * (h_in - h_s),  h_s = h(p_out, s(p_in, h_in))
+//
+// The outlet pressure is not fixed by the turbine: it comes from the file or the unit downstream.
+// Entropy generation: S_gen = m (s_out - s_in).
+func init() { ops["turbine"] = unitOp{buildTurbine, finishTurbine} }
+
+func buildTurbine(b *builder, u int) {
+	in, out := b.port(u, "in"), b.port(u, "out")
+	w := b.param(u, "power", true, 0)
+	eta := b.param(u, "efficiency", true, 0)
+	b.massBalance(u, []int{in}, []int{out})
+	b.energyBalance(u, "", []int{in}, []int{out}, nil, []term{w})
+	hi, ho, pi, po := b.hv(in), b.hv(out), b.pv(in), b.pv(out)
+	b.unitEq(u, Equation{
+		Label: "isentropic efficiency of " + b.uname(u), Kind: EqWork, Dim: units.SpecificEnergy,
+		LHS: "actual enthalpy drop", RHS: "efficiency x isentropic drop", Vars: []int{ho, eta.v, hi, po, pi},
+		eval: func(x []float64) (float64, float64, error) {
+			hs, err := isentropicH(x[pi], x[hi], x[po])
+			return x[hi] - x[ho], x[eta.v] * (x[hi] - hs), err
+		},
+		direct: func(x []float64, v int) (float64, error) {
+			hs, err := isentropicH(x[pi], x[hi], x[po])
+			if err != nil {
+				return math.NaN(), err
+			}
+			switch v {
+			case ho:
+				return x[hi] - x[eta.v]*(x[hi]-hs), nil
+			case eta.v:
+				return (x[hi] - x[ho]) / (x[hi] - hs), nil
+			}
+			return math.NaN(), errNoDirect
+		},
+		floor: 1,
+	})
+}
+
+func finishTurbine(c *unitCalc) {
+	in, out := c.ports("in"), c.ports("out")
+	c.res.W = c.param("power", nanf)
+	c.res.Efficiency = c.param("efficiency", nanf)
+	c.checkEfficiency(c.res.Efficiency)
+	if !c.flows(in, out, 0, c.res.W) {
+		return
+	}
+	c.res.Sgen = c.entropyFlow(in, out)
+	c.checkSgen()
+	st, _, _ := c.state(out[0])
+	// Exhaust wetter than about 10 % erodes the last-stage blades (common practice, no source).
+	if twoPhase(st) && st.X < 0.9 {
+		c.s.diag(model.Warning, CodeWetExhaust, c.un.Span, fmt.Sprintf("%s: exhaust %s has quality %s, wetter than 10 %%",
+			c.name(), c.s.b.sname(out[0]), c.s.f.frac(st.X)))
+	}
+}

@@ -1,0 +1,70 @@
+package solve
+
+import (
+	"errors"
+	"math"
+
+	"hmb/thermo/if97"
+)
+
+// pCrit is the critical pressure of IAPWS-IF97 (IAPWS R7-97(2012), Eq. 2), Pa.
+const pCrit = 22.064e6
+
+// T0 is the ambient (dead-state) temperature at which heat lost to the surroundings leaves a unit:
+// 25 C, the usual reference of exergy tables (common practice, no source).
+const T0 = 298.15
+
+// statePH is the only door to the property library for a stream state.
+func statePH(p, h float64) (if97.State, error) {
+	if !finite(p) || !finite(h) {
+		return if97.State{}, errNotFinite
+	}
+	return if97.PH(p, h)
+}
+
+var errNotFinite = errors.New("not a finite number")
+
+// satEnds returns the saturated liquid and vapour enthalpies at p.
+func satEnds(p float64) (hl, hv float64, err error) {
+	if !(p > 0 && p < pCrit) {
+		return 0, 0, errNoDome
+	}
+	l, v, err := if97.SatPair(p)
+	if err != nil {
+		return 0, 0, err
+	}
+	return l.H, v.H, nil
+}
+
+var errNoDome = errors.New("no two-phase region at this pressure (at or above the critical pressure)")
+
+// qualityExt is the quality extended past the saturation line: below 0 for subcooled liquid,
+// above 1 for superheated vapour. It is continuous and linear in h at fixed p.
+func qualityExt(p, h float64) (float64, error) {
+	hl, hv, err := satEnds(p)
+	if err != nil {
+		return math.NaN(), err
+	}
+	return (h - hl) / (hv - hl), nil
+}
+
+// isentropicH is the enthalpy at pressure p2 with the entropy of the state (p1, h1).
+func isentropicH(p1, h1, p2 float64) (float64, error) {
+	st, err := statePH(p1, h1)
+	if err != nil {
+		return math.NaN(), err
+	}
+	if !finite(p2) {
+		return math.NaN(), errNotFinite
+	}
+	st2, err := if97.PS(p2, st.S)
+	if err != nil {
+		return math.NaN(), err
+	}
+	return st2.H, nil
+}
+
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// twoPhase reports whether a state lies on or inside the saturation dome.
+func twoPhase(st if97.State) bool { return !math.IsNaN(st.X) }

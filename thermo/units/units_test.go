@@ -1,0 +1,385 @@
+package units
+
+import (
+	"errors"
+	"math"
+	"slices"
+	"strings"
+	"testing"
+)
+
+func near(got, want, rel float64) bool {
+	if want == 0 {
+		return math.Abs(got) <= rel
+	}
+	return math.Abs(got-want) <= rel*math.Abs(want)
+}
+
+func mustLookup(t testing.TB, s string) Unit {
+	t.Helper()
+	u, err := Lookup(s)
+	if err != nil {
+		t.Fatalf("Lookup(%q): %v", s, err)
+	}
+	return u
+}
+
+// Conversion factors: one unit of each, in SI base units.
+func TestFactors(t *testing.T) {
+	const sp811 = "NIST SP 811 (2008) App. B.8, from memory"
+	const sp7 = 5e-7 // SP 811 prints 7 significant figures: half a unit in the last one
+	tests := []struct {
+		unit   string
+		want   float64
+		rel    float64 // the precision the source states the value to
+		source string
+	}{
+		{"Pa", 1, 0, "SI definition"},
+		{"kPa", 1e3, 0, "SI prefix"},
+		{"MPa", 1e6, 0, "SI prefix"},
+		{"bar", 1e5, 0, sp811 + " (exact)"},
+		{"mbar", 100, 1e-15, sp811 + " (exact)"},
+		{"atm", 101325, 0, sp811 + " (exact, standard atmosphere)"},
+		{"psia", 6894.757293168, 1e-12, "lbf = 0.45359237 kg x 9.80665 m/s2 over (0.0254 m)^2; " + sp811 + " 6.894 757 E+03"},
+		{"psia", 6.894757e3, sp7, sp811},
+		{"inHg", 3.386389e3, sp7, sp811 + ", inch of mercury, conventional (32 F)"},
+		{"inH2O", 2.490889e2, sp7, sp811 + ", inch of water, conventional"},
+		{"J/kg", 1, 0, "SI base"},
+		{"MJ/kg", 1e6, 0, "SI prefix"},
+		{"Btu/lbm", 2326, 1e-15, sp811 + ", Btu_IT/lb = 2.326 E+03 (exact)"},
+		{"kJ/(kg K)", 1e3, 0, "SI prefix"},
+		{"Btu/(lbm R)", 4186.8, 1e-15, sp811 + ", Btu_IT/(lb F) = 4.1868 E+03 (exact)"},
+		{"ft3/lbm", 6.242796e-2, sp7, sp811 + ", cubic foot per pound"},
+		{"L/kg", 1e-3, 0, "SI (litre = 1e-3 m3)"},
+		{"lbm/ft3", 1.601846e1, sp7, sp811 + ", pound per cubic foot"},
+		{"kg/h", 1 / 3600.0, 1e-15, "definition of the hour"},
+		{"t/h", 1 / 3.6, 1e-15, "tonne = 1000 kg"},
+		{"lbm/s", 0.45359237, 0, "International yard and pound agreement (1959)"},
+		{"lbm/h", 1.259979e-4, sp7, sp811 + ", pound per hour"},
+		{"klb/h", 1.259979e-1, sp7, sp811 + ", pound per hour x 1000"},
+		{"kpph", 1.259979e-1, sp7, "thousand lb/h: common practice, no source"},
+		{"Btu/h", 2.930711e-1, sp7, sp811 + ", Btu_IT per hour"},
+		{"MBH", 2.930711e2, sp7, "1000 Btu/h: common practice, no source"},
+		{"MMBtu/h", 2.930711e5, sp7, sp811 + ", Btu_IT per hour x 1e6"},
+		{"hp", 745.69987158227022, 1e-15, "550 ft lbf/s; " + sp811 + " 7.456 999 E+02"},
+		{"hp", 7.456999e2, sp7, sp811},
+		{"TR", 3.516853e3, sp7, sp811 + ", ton of refrigeration (12 000 Btu_IT/h)"},
+		{"ton", 3.516853e3, sp7, sp811 + ", ton of refrigeration (12 000 Btu_IT/h)"},
+		{"ft", 0.3048, 0, "International yard and pound agreement (1959)"},
+		{"km", 1000, 0, "SI prefix"},
+		{"%", 0.01, 0, "per cent"},
+	}
+	for _, tt := range tests {
+		u := mustLookup(t, tt.unit)
+		if got := u.ToSI(1, StandardAtmosphere); !near(got, tt.want, tt.rel) {
+			t.Errorf("1 %s = %.15g SI, want %.15g (%s)", tt.unit, got, tt.want, tt.source)
+		}
+		if got := u.DeltaToSI(1); !near(got, tt.want, tt.rel) {
+			t.Errorf("delta 1 %s = %.15g SI, want %.15g (%s)", tt.unit, got, tt.want, tt.source)
+		}
+	}
+}
+
+func TestTemperature(t *testing.T) {
+	const its90 = "Celsius/Fahrenheit definitions, NIST SP 811 (2008) App. B.9, from memory"
+	tests := []struct {
+		unit     string
+		v, wantK float64
+		delta    bool
+		source   string
+	}{
+		{"F", 212, 373.15, false, its90 + " (boiling point at 1 atm)"},
+		{"°F", 32, 273.15, false, its90},
+		{"degF", -40, 233.15, false, its90 + " (-40 F = -40 C)"},
+		{"C", 100, 373.15, false, its90},
+		{"°C", -273.15, 0, false, its90},
+		{"K", 300, 300, false, its90},
+		{"R", 671.67, 373.15, false, its90 + " (R = 9/5 K)"},
+		{"°R", 0, 0, false, its90},
+		{"F", 2, 10.0 / 9, true, its90 + " (difference: 2 F = 1.1111 K)"},
+		{"C", 5, 5, true, its90},
+		{"R", 9, 5, true, its90},
+		{"dF", 2, 10.0 / 9, false, its90},
+		{"dR", 18, 10, false, its90},
+		{"dC", 7, 7, false, its90},
+		{"ΔK", 7, 7, false, its90},
+	}
+	for _, tt := range tests {
+		u := mustLookup(t, tt.unit)
+		var got float64
+		if tt.delta {
+			got = u.DeltaToSI(tt.v)
+		} else {
+			got = u.ToSI(tt.v, StandardAtmosphere)
+		}
+		if !near(got, tt.wantK, 1e-12) {
+			t.Errorf("%g %s (delta %v) = %.15g K, want %.15g (%s)", tt.v, tt.unit, tt.delta, got, tt.wantK, tt.source)
+		}
+	}
+	// A temperature difference unit has its own dimension; a temperature unit does not carry one.
+	if d := mustLookup(t, "dF").Dim(); d != TemperatureDiff {
+		t.Errorf("dF dim = %v", d)
+	}
+	if d := mustLookup(t, "F").Dim(); d != Temperature {
+		t.Errorf("F dim = %v", d)
+	}
+}
+
+func TestGauge(t *testing.T) {
+	site, err := AtmosphereAt(1500)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const psi = 6894.757293168 // NIST SP 811 (2008) App. B.8 from the lbf definition, from memory
+	tests := []struct {
+		unit   string
+		v, atm float64
+		wantPa float64
+		source string
+	}{
+		{"psig", 150, StandardAtmosphere, 150*psi + 101325, "gauge + 1 atm (NIST SP 811 factors)"},
+		{"psig", 0, StandardAtmosphere, 101325, "gauge zero is the atmosphere"},
+		{"psig", 150, 84560, 150*psi + 84560, "site at 1500 m: U.S. Standard Atmosphere 1976 Table I 84.56 kPa, from memory"},
+		{"psia", 150, 84560, 150 * psi, "absolute ignores the site"},
+		{"barg", 10, 84560, 1e6 + 84560, "bar = 1e5 Pa (exact)"},
+		{"bar(g)", 10, StandardAtmosphere, 1e6 + 101325, "bar = 1e5 Pa (exact)"},
+		{"kPa(g)", 500, StandardAtmosphere, 601325, "SI prefix"},
+		{"kPag", -101.325, StandardAtmosphere, 0, "full vacuum"},
+		{"MPa(g)", 1, StandardAtmosphere, 1101325, "SI prefix"},
+		{"psig", -20, StandardAtmosphere, 101325 - 20*psi, "below zero absolute: the caller's to flag"},
+	}
+	for _, tt := range tests {
+		u := mustLookup(t, tt.unit)
+		got := u.ToSI(tt.v, tt.atm)
+		if !near(got, tt.wantPa, 1e-12) && math.Abs(got-tt.wantPa) > 1e-9 {
+			t.Errorf("%g %s at atm %g = %.15g Pa, want %.15g (%s)", tt.v, tt.unit, tt.atm, got, tt.wantPa, tt.source)
+		}
+		if back := u.FromSI(got, tt.atm); math.Abs(back-tt.v) > 1e-9*math.Max(1, math.Abs(tt.v)) {
+			t.Errorf("%s round trip %g -> %g", tt.unit, tt.v, back)
+		}
+	}
+	// A tolerance on a gauge pressure is a size, not a level: no atmosphere.
+	if got := mustLookup(t, "psig").DeltaToSI(5); !near(got, 5*psi, 1e-12) {
+		t.Errorf("delta 5 psig = %g Pa, want %g", got, 5*psi)
+	}
+	// The computed site atmosphere feeds gauge conversion the same way.
+	if got := mustLookup(t, "psig").ToSI(0, site); got != site {
+		t.Errorf("0 psig at 1500 m = %g, want %g", got, site)
+	}
+	for _, s := range []string{"psig", "barg", "bar(g)", "kPa(g)", "kPag", "MPa(g)", "MPag", "psi(g)"} {
+		if !mustLookup(t, s).Gauge() {
+			t.Errorf("%s not gauge", s)
+		}
+	}
+	for _, s := range []string{"psia", "psi", "bara", "bar", "kPa", "kPa(a)", "MPa", "inHg", "atm"} {
+		if mustLookup(t, s).Gauge() {
+			t.Errorf("%s gauge", s)
+		}
+	}
+}
+
+// Every listed spelling resolves to its dimension, converts both ways, and its canonical symbol
+// looks up to the same unit. Case variants either reach the same unit or are refused.
+func TestRoundTripEverySpelling(t *testing.T) {
+	total := 0
+	for d := Dim(0); d < numDims; d++ {
+		sp := Spellings(d)
+		if d != Dimensionless && len(sp) == 0 {
+			t.Errorf("no spellings for %v", d)
+		}
+		for _, s := range sp {
+			total++
+			u := mustLookup(t, s)
+			if u.Dim() != d {
+				t.Errorf("%q: dim %v, want %v", s, u.Dim(), d)
+			}
+			if back := mustLookup(t, u.Symbol()); back != u {
+				t.Errorf("%q: Lookup(Symbol() %q) = %q", s, u.Symbol(), back.Symbol())
+			}
+			for _, atm := range []float64{StandardAtmosphere, 84560} {
+				for _, v := range []float64{-40, 0, 1, 123.456, 6.02e5} {
+					si := u.ToSI(v, atm)
+					if got := u.FromSI(si, atm); math.Abs(got-v) > 1e-12*math.Max(math.Abs(v), math.Abs(si))+1e-9 {
+						t.Errorf("%q: FromSI(ToSI(%g)) = %.17g", s, v, got)
+					}
+					if got := u.DeltaFromSI(u.DeltaToSI(v)); math.Abs(got-v) > 1e-12*math.Abs(v) {
+						t.Errorf("%q: DeltaFromSI(DeltaToSI(%g)) = %.17g", s, v, got)
+					}
+				}
+			}
+			for _, variant := range []string{strings.ToLower(s), strings.ToUpper(s)} {
+				got, err := Lookup(variant)
+				if err == nil && got != u {
+					t.Errorf("case variant %q of %q reaches %q", variant, s, got.Symbol())
+				}
+			}
+		}
+	}
+	if total < 100 {
+		t.Errorf("only %d spellings", total)
+	}
+}
+
+func TestLookupCase(t *testing.T) {
+	tests := []struct {
+		in, want string // want "" means refused
+	}{
+		{"kpa", "kPa"}, {"KPA", "kPa"}, {"Kpa", "kPa"},
+		{"btu/lbm", "Btu/lbm"}, {"BTU/lb", "Btu/lbm"}, {"BTU/LBM", "Btu/lbm"},
+		{"PSIG", "psig"}, {"Psia", "psia"}, {"kj/kg", "kJ/kg"}, {"KJ/KG-K", "kJ/(kg K)"},
+		{"degf", "F"}, {"KW", "kW"}, {"mmbtu/h", "MMBtu/h"}, {"mbh", "MBH"}, {" psig ", "psig"},
+		{"", ""}, // the bare number
+		// Case carries meaning: kelvin is K, mega is M.
+		{"k", "!K"}, {"c", "!C"}, {"f", "!F"}, {"w", "!W"}, {"M", "!m"},
+		{"mpa", "!MPa"}, {"mw", "!MW"}, {"mj/kg", "!MJ/kg"}, {"Mbar", "!mbar"},
+	}
+	for _, tt := range tests {
+		u, err := Lookup(tt.in)
+		if strings.HasPrefix(tt.want, "!") {
+			var ue *UnknownError
+			if !errors.As(err, &ue) {
+				t.Errorf("Lookup(%q) = %q, %v; want refusal", tt.in, u.Symbol(), err)
+				continue
+			}
+			if ue.Suggestion != tt.want[1:] {
+				t.Errorf("Lookup(%q) suggests %q, want %q", tt.in, ue.Suggestion, tt.want[1:])
+			}
+			continue
+		}
+		if err != nil || u.Symbol() != tt.want {
+			t.Errorf("Lookup(%q) = %q, %v; want %q", tt.in, u.Symbol(), err, tt.want)
+		}
+	}
+}
+
+func TestUnknown(t *testing.T) {
+	tests := []struct{ in, suggestion, msg string }{
+		{"psai", "psia", `unknown unit "psai"; did you mean "psia"?`},
+		{"kj/kgg", "kJ/kg", `unknown unit "kj/kgg"; did you mean "kJ/kg"?`},
+		{"Btu/lbn", "Btu/lbm", `unknown unit "Btu/lbn"; did you mean "Btu/lbm"?`},
+		{"pisg", "psig", `unknown unit "pisg"; did you mean "psig"?`},
+		{"lbm/hh", "lbm/h", `unknown unit "lbm/hh"; did you mean "lbm/h"?`},
+		{"furlong", "", `unknown unit "furlong"`},
+		{"x", "", `unknown unit "x"`},
+	}
+	for _, tt := range tests {
+		_, err := Lookup(tt.in)
+		var ue *UnknownError
+		if !errors.As(err, &ue) {
+			t.Fatalf("Lookup(%q) error %v, want *UnknownError", tt.in, err)
+		}
+		if ue.Spelling != tt.in || ue.Suggestion != tt.suggestion || err.Error() != tt.msg {
+			t.Errorf("Lookup(%q) = %+v %q, want suggestion %q, message %q", tt.in, *ue, err, tt.suggestion, tt.msg)
+		}
+	}
+}
+
+func TestDimString(t *testing.T) {
+	tests := []struct {
+		d    Dim
+		want string
+	}{
+		{Dimensionless, "dimensionless"}, {Pressure, "pressure"}, {Temperature, "temperature"},
+		{TemperatureDiff, "temperature difference"}, {SpecificEnergy, "specific enthalpy"},
+		{SpecificEntropy, "specific entropy"}, {SpecificVolume, "specific volume"},
+		{Density, "density"}, {MassFlow, "mass flow"}, {Power, "power"}, {Length, "length"},
+		{Dim(200), "Dim(200)"},
+	}
+	for _, tt := range tests {
+		if got := tt.d.String(); got != tt.want {
+			t.Errorf("Dim(%d).String() = %q, want %q", tt.d, got, tt.want)
+		}
+	}
+}
+
+func TestSystem(t *testing.T) {
+	for _, tt := range []struct {
+		in   string
+		want System
+		ok   bool
+	}{{"SI", SI, true}, {"si", SI, true}, {"US", US, true}, {"us", US, true}, {"imperial", SI, false}, {"", SI, false}} {
+		got, ok := ParseSystem(tt.in)
+		if got != tt.want || ok != tt.ok {
+			t.Errorf("ParseSystem(%q) = %v, %v", tt.in, got, ok)
+		}
+	}
+	want := map[System][numDims]string{
+		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s"},
+		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s"},
+	}
+	for sys, syms := range want {
+		for d := Dim(0); d < numDims; d++ {
+			u := sys.Default(d)
+			if u.Symbol() != syms[d] || u.Dim() != d || u.Gauge() {
+				t.Errorf("%v.Default(%v) = %q (%v, gauge %v), want %q", sys, d, u.Symbol(), u.Dim(), u.Gauge(), syms[d])
+			}
+		}
+	}
+}
+
+// TestSystemFamily: which units a system owns decides the display system hmb props infers.
+func TestSystemFamily(t *testing.T) {
+	for _, tt := range []struct {
+		sym    string
+		us, si bool
+	}{{"psig", true, false}, {"kPa", false, true}, {"F", true, false}, {"C", false, true},
+		{"lbm/h", true, false}, {"t/h", false, true}, {"%", true, true}, {"ft/s", true, false}} {
+		u, err := Lookup(tt.sym)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if US.Has(u) != tt.us || SI.Has(u) != tt.si {
+			t.Errorf("%s: US.Has %v SI.Has %v, want %v %v", tt.sym, US.Has(u), SI.Has(u), tt.us, tt.si)
+		}
+	}
+	if US.Gauge().Symbol() != "psig" || SI.Gauge().Symbol() != "kPa(g)" {
+		t.Errorf("gauge units %v %v", US.Gauge(), SI.Gauge())
+	}
+}
+
+func TestZeroUnit(t *testing.T) {
+	var u Unit
+	if u.Symbol() != "" || u.Dim() != Dimensionless || u.ToSI(0.25, 0) != 0.25 || u != mustLookup(t, "") {
+		t.Errorf("zero Unit is not the bare number: %q %v", u.Symbol(), u.Dim())
+	}
+}
+
+func BenchmarkLookup(b *testing.B) {
+	for _, in := range []string{"psig", "kJ/(kg K)", "BTU/LB", "psai"} {
+		b.Run(in, func(b *testing.B) {
+			for b.Loop() {
+				Lookup(in)
+			}
+		})
+	}
+}
+
+func TestSpellings(t *testing.T) {
+	tests := []struct {
+		d    Dim
+		want []string // must be present
+	}{
+		{Pressure, []string{"Pa", "kPa", "MPa", "bar", "mbar", "psia", "psi", "psig", "bar(g)", "barg", "bara", "kPa(g)", "kPag", "kPa(a)", "MPa(g)", "inHg", "inH2O", "atm"}},
+		{Temperature, []string{"K", "degC", "C", "°C", "degF", "F", "°F", "R", "degR", "°R"}},
+		{TemperatureDiff, []string{"dF", "dC", "dK", "dR"}},
+		{SpecificEnergy, []string{"J/kg", "kJ/kg", "MJ/kg", "Btu/lbm", "Btu/lb"}},
+		{SpecificEntropy, []string{"J/(kg K)", "kJ/(kg K)", "kJ/kgK", "kJ/kg-K", "Btu/(lbm R)", "Btu/lbm-R", "Btu/(lbm F)"}},
+		{SpecificVolume, []string{"m3/kg", "ft3/lbm", "L/kg"}},
+		{Density, []string{"kg/m3", "lbm/ft3"}},
+		{MassFlow, []string{"kg/s", "kg/h", "kg/min", "t/h", "lbm/s", "lbm/min", "lbm/h", "lb/h", "klb/h", "kpph"}},
+		{Power, []string{"W", "kW", "MW", "Btu/h", "MBH", "MMBtu/h", "hp", "TR", "ton"}},
+		{Length, []string{"m", "ft", "km"}},
+		{Dimensionless, []string{"%", "frac"}},
+	}
+	for _, tt := range tests {
+		got := Spellings(tt.d)
+		if !slices.IsSorted(got) {
+			t.Errorf("Spellings(%v) not sorted", tt.d)
+		}
+		for _, w := range tt.want {
+			if !slices.Contains(got, w) {
+				t.Errorf("Spellings(%v) lacks %q", tt.d, w)
+			}
+		}
+	}
+}
