@@ -12,31 +12,15 @@ import (
 	"hmb/thermo/if97/internal/region3"
 )
 
-// referenceDir finds shared/reference by walking up from this package to
-// the folder that holds both main and shared.
+// referenceDir is the repository's copy of the reference data (testdata/reference; its
+// README names the sources: IAPWS R7-97(2012) verification tables and a python3-iapws grid).
 func referenceDir(t *testing.T) string {
 	t.Helper()
-	dir, err := filepath.Abs(".")
-	if err != nil {
-		t.Fatal(err)
+	dir := filepath.Join("..", "..", "testdata", "reference")
+	if _, err := os.Stat(dir); err != nil {
+		t.Fatalf("reference data missing: %v", err)
 	}
-	for {
-		main, errM := os.Stat(filepath.Join(dir, "main"))
-		shared, errS := os.Stat(filepath.Join(dir, "shared"))
-		if errM == nil && errS == nil && main.IsDir() && shared.IsDir() {
-			return filepath.Join(dir, "shared", "reference")
-		}
-		parent := filepath.Dir(dir)
-		if parent == dir {
-			break
-		}
-		dir = parent
-	}
-	if os.Getenv("HMB_REQUIRE_REFERENCE") == "1" {
-		t.Fatal("shared/reference not found above the package and HMB_REQUIRE_REFERENCE=1")
-	}
-	t.Skip("shared/reference not found above the package directory")
-	return ""
+	return dir
 }
 
 func readCSV(t *testing.T, name string) [][]string {

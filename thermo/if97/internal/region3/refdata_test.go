@@ -10,32 +10,10 @@ import (
 	"testing"
 )
 
-// sharedDir walks up from the package directory to the folder that holds
-// both the repository ("main") and the shared reference data ("shared").
-func sharedDir(t *testing.T) string {
-	t.Helper()
-	dir, err := os.Getwd()
-	if err != nil {
-		t.Skipf("reference data not found: cannot get working directory: %v", err)
-	}
-	for {
-		if isDir(filepath.Join(dir, "main")) && isDir(filepath.Join(dir, "shared")) {
-			return filepath.Join(dir, "shared")
-		}
-		parent := filepath.Dir(dir)
-		if parent == dir {
-			t.Skip("reference data not found: no ancestor folder holds both main/ and shared/")
-		}
-		dir = parent
-	}
-}
+// refPath is the repository's copy of the IAPWS R7-97(2012) verification values.
+var refPath = filepath.Join("..", "..", "..", "..", "testdata", "reference", "if97-verification.csv")
 
-func isDir(p string) bool {
-	fi, err := os.Stat(p)
-	return err == nil && fi.IsDir()
-}
-
-// refRow is one row of shared/reference/if97-verification.csv.
+// refRow is one row of testdata/reference/if97-verification.csv.
 type refRow struct {
 	source, names, prop string
 	inputs              []float64
@@ -45,10 +23,10 @@ type refRow struct {
 
 func loadVerification(t *testing.T) []refRow {
 	t.Helper()
-	path := filepath.Join(sharedDir(t), "reference", "if97-verification.csv")
+	path := refPath
 	f, err := os.Open(path)
 	if err != nil {
-		t.Skipf("reference data not found: %v", err)
+		t.Fatalf("reference data missing: %v", err)
 	}
 	defer f.Close()
 	recs, err := csv.NewReader(f).ReadAll()

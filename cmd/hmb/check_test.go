@@ -1,0 +1,266 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"flag"
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files of the command-line tests")
+
+// golden compares got with the file testdata/cli/name (relative to the repository root, which
+// the caller has made the working directory), or rewrites it under -update.
+func golden(t *testing.T, name string, got []byte) {
+	t.Helper()
+	path := filepath.Join("testdata", "cli", name)
+	if *update {
+		if err := os.WriteFile(path, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./cmd/hmb -update to create it)", err)
+	}
+	if !bytes.Equal(got, want) {
+		t.Errorf("%s differs from the output (go test ./cmd/hmb -run %s -update rewrites it after review):\n%s", path, t.Name(), got)
+	}
+}
+
+// TestCheckGolden runs hmb check over the command-line fixtures in every output format. The
+// fixtures are invented demo calcs; the goldens are reviewed output, not references (the
+// solved values themselves are checked against python3-iapws in examples_test.go and in the
+// solver's tests).
+func TestCheckGolden(t *testing.T) {
+	t.Chdir(filepath.Join("..", ".."))
+	tests := []struct {
+		name   string
+		args   []string
+		code   int
+		golden string
+	}{
+		{"text", []string{"check", "testdata/cli"}, 1, "check.txt"},
+		{"quiet", []string{"check", "--quiet", "testdata/cli/faulty.hmb"}, 1, "check-quiet.txt"},
+		{"clean-si", []string{"check", "--si", "testdata/cli/clean.hmb"}, 0, "check-si.txt"},
+		{"json", []string{"check", "--format", "json", "testdata/cli"}, 1, "check.json"},
+		{"sarif", []string{"check", "--format", "sarif", "testdata/cli"}, 1, "check.sarif"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			var out, errb bytes.Buffer
+			if code := run(tt.args, nil, &out, &errb); code != tt.code {
+				t.Fatalf("exit %d, want %d; stderr %s", code, tt.code, errb.String())
+			}
+			golden(t, tt.golden, out.Bytes())
+		})
+	}
+}
+
+// TestCheckJSONShape checks the JSON contract: SI base units, null for what is unknown or
+// single-phase quality, 1-based positions.
+func TestCheckJSONShape(t *testing.T) {
+	t.Chdir(filepath.Join("..", ".."))
+	var out, errb bytes.Buffer
+	run([]string{"check", "--format", "json", "testdata/cli/clean.hmb", "testdata/cli/faulty.hmb"}, nil, &out, &errb)
+	var doc struct {
+		Files []struct {
+			Path        string
+			Diagnostics []struct {
+				Severity, Code, Message string
+				Range                   struct{ Start, End struct{ Line, Column int } }
+			}
+			Streams []map[string]any
+			Units   []map[string]any
+		}
+	}
+	if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if len(doc.Files) != 2 {
+		t.Fatalf("%d files", len(doc.Files))
+	}
+	clean, faulty := doc.Files[0], doc.Files[1]
+	if len(clean.Diagnostics) != 0 || len(clean.Streams) != 2 || len(clean.Units) != 1 {
+		t.Fatalf("clean: %+v", clean)
+	}
+	hp := clean.Streams[0]
+	// 4000 lbm/h = 4000 x 0.45359237 / 3600 kg/s (exact pound); 125 psig + 14.696 psia default
+	// atmosphere (101325 Pa) = 125 x 6894.757293168 + 101325 Pa; 450 F = 505.372 K.
+	for k, want := range map[string]float64{"m": 4000 * 0.45359237 / 3600, "p": 125*6894.757293168361 + 101325, "T": (450-32)/1.8 + 273.15} {
+		if g, _ := hp[k].(float64); g == 0 || (g-want)/want > 1e-9 || (want-g)/want > 1e-9 {
+			t.Errorf("HP %s = %v, want %.10g", k, hp[k], want)
+		}
+	}
+	if hp["x"] != nil || hp["phase"] != "superheated vapour" {
+		t.Errorf("HP x %v phase %v", hp["x"], hp["phase"])
+	}
+	// A valve conserves enthalpy.
+	if clean.Streams[0]["h"] != clean.Streams[1]["h"] {
+		t.Errorf("valve: h %v -> %v", clean.Streams[0]["h"], clean.Streams[1]["h"])
+	}
+	codes := map[string]bool{}
+	for _, d := range faulty.Diagnostics {
+		codes[d.Code] = true
+		if d.Range.Start.Line < 1 || d.Range.Start.Column < 1 || d.Severity == "" || d.Message == "" {
+			t.Errorf("bad diagnostic %+v", d)
+		}
+	}
+	for _, c := range []string{"V301", "V303", "N201"} {
+		if !codes[c] {
+			t.Errorf("faulty.hmb: no %s diagnostic in %v", c, codes)
+		}
+	}
+	for _, s := range faulty.Streams {
+		if s["name"] == "B" && s["T"] != nil {
+			t.Errorf("unsolved stream B has T %v, want null", s["T"])
+		}
+	}
+}
+
+// TestSARIF checks the parts of SARIF 2.1.0 that code-scanning services read.
+func TestSARIF(t *testing.T) {
+	t.Chdir(filepath.Join("..", ".."))
+	var out, errb bytes.Buffer
+	run([]string{"check", "--format", "sarif", "testdata/cli"}, nil, &out, &errb)
+	var doc struct {
+		Version string `json:"version"`
+		Schema  string `json:"$schema"`
+		Runs    []struct {
+			Tool struct {
+				Driver struct {
+					Name  string
+					Rules []struct{ ID string }
+				}
+			}
+			Results []struct {
+				RuleID    string `json:"ruleId"`
+				Level     string
+				Message   struct{ Text string }
+				Locations []struct {
+					PhysicalLocation struct {
+						ArtifactLocation struct{ URI string }
+						Region           struct{ StartLine, StartColumn int }
+					}
+				}
+			}
+		}
+	}
+	if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if doc.Version != "2.1.0" || !strings.Contains(doc.Schema, "sarif") || len(doc.Runs) != 1 {
+		t.Fatalf("version %q schema %q runs %d", doc.Version, doc.Schema, len(doc.Runs))
+	}
+	r := doc.Runs[0]
+	rules := map[string]bool{}
+	for _, rule := range r.Tool.Driver.Rules {
+		rules[rule.ID] = true
+	}
+	known := map[string]bool{}
+	for _, c := range allCodes() {
+		known[c.Code] = true
+	}
+	for id := range rules {
+		if !known[id] {
+			t.Errorf("rule %s is not a documented code", id)
+		}
+	}
+	if len(r.Results) == 0 {
+		t.Fatal("no results")
+	}
+	for _, res := range r.Results {
+		loc := res.Locations[0].PhysicalLocation
+		if !rules[res.RuleID] || res.Level == "" || res.Message.Text == "" || loc.Region.StartLine < 1 ||
+			loc.ArtifactLocation.URI != "testdata/cli/faulty.hmb" {
+			t.Errorf("bad result %+v", res)
+		}
+	}
+}
+
+// TestFmt: fmt --check lists files that differ, -w rewrites them (atomically, keeping the mode)
+// and a file that does not parse is never touched.
+func TestFmt(t *testing.T) {
+	dir := t.TempDir()
+	messy := filepath.Join(dir, "messy.hmb")
+	broken := filepath.Join(dir, "broken.hmb")
+	src := "stream   A   {p 10 bar;T 200 C}\n\n\n\nstream B\n"
+	os.WriteFile(messy, []byte(src), 0o640)
+	os.WriteFile(broken, []byte("stream A { p 10 bar\n"), 0o644)
+
+	var out, errb bytes.Buffer
+	if code := run([]string{"fmt", "--check", messy}, nil, &out, &errb); code != 1 || strings.TrimSpace(out.String()) != messy {
+		t.Errorf("fmt --check: exit %d, out %q", code, out.String())
+	}
+	out.Reset()
+	if code := run([]string{"fmt", "-w", messy}, nil, &out, &errb); code != 0 {
+		t.Fatalf("fmt -w: exit %d: %s", code, errb.String())
+	}
+	got, _ := os.ReadFile(messy)
+	if string(got) == src || !strings.Contains(string(got), "stream A") {
+		t.Errorf("fmt -w left %q", got)
+	}
+	if fi, _ := os.Stat(messy); fi.Mode().Perm() != 0o640 {
+		t.Errorf("mode %v, want 0640", fi.Mode().Perm())
+	}
+	if code := run([]string{"fmt", "--check", messy}, nil, &out, &errb); code != 0 {
+		t.Errorf("formatted file still differs")
+	}
+	before, _ := os.ReadFile(broken)
+	if code := run([]string{"fmt", "-w", broken}, nil, &out, &errb); code != 1 {
+		t.Errorf("fmt -w on a broken file: exit %d, want 1", code)
+	}
+	if after, _ := os.ReadFile(broken); !bytes.Equal(before, after) {
+		t.Errorf("broken file rewritten: %q", after)
+	}
+	entries, _ := os.ReadDir(dir)
+	if len(entries) != 2 {
+		t.Errorf("temporary files left behind: %v", entries)
+	}
+}
+
+// TestUsage: wrong invocations exit 2 with a message.
+func TestUsage(t *testing.T) {
+	for _, args := range [][]string{{}, {"frobnicate"}, {"check"}, {"check", "--format", "xml", "x"}, {"check", "--si", "--us", "x"}, {"check", "no/such/dir"}, {"fmt"}} {
+		var out, errb bytes.Buffer
+		if code := run(args, nil, &out, &errb); code != 2 || errb.Len() == 0 {
+			t.Errorf("%v: exit %d, stderr %q", args, code, errb.String())
+		}
+	}
+}
+
+// TestCodesTable keeps the table of diagnostic codes in README.md equal to the codes hmb
+// reports (-update rewrites the part between the markers).
+func TestCodesTable(t *testing.T) {
+	t.Chdir(filepath.Join("..", ".."))
+	const begin, end = "<!-- codes:begin -->\n", "<!-- codes:end -->\n"
+	var b strings.Builder
+	b.WriteString("| code | severity | meaning |\n|---|---|---|\n")
+	for _, c := range allCodes() {
+		fmt.Fprintf(&b, "| %s | %s | %s |\n", c.Code, c.Severity, strings.ReplaceAll(c.Summary, "|", "\\|"))
+	}
+	readme, err := os.ReadFile("README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(readme)
+	i, j := strings.Index(s, begin), strings.Index(s, end)
+	if i < 0 || j < i {
+		t.Fatalf("README.md lacks the %q and %q markers", begin, end)
+	}
+	want := s[:i+len(begin)] + b.String() + s[j:]
+	if *update {
+		if err := writeFileAtomic("README.md", []byte(want)); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	if want != s {
+		t.Error("README.md's table of diagnostic codes is out of date: go test ./cmd/hmb -run CodesTable -update")
+	}
+}

@@ -1,0 +1,114 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"strings"
+	"testing"
+)
+
+// TestPropsJSON checks hmb props --json end to end: parsing the arguments, gauge conversion,
+// the state, and SI base units in the output. Reference values from Debian's python3-iapws 1.5
+// (IAPWS97 class), computed with the same inputs converted to MPa and K.
+func TestPropsJSON(t *testing.T) {
+	tests := []struct {
+		args []string
+		want map[string]float64
+		x    any // nil when single phase, else the quality
+	}{
+		// python3-iapws: IAPWS97(P=1.0, h=2800.0) -> T 461.7628910525897 K, s 6.635008512392816,
+		// v 0.1995152921005486, w 508.57010701275794, cp 2.546943705858392.
+		{[]string{"--json", "--si", "p=1MPa", "h=2800kJ/kg"},
+			map[string]float64{"p": 1e6, "T": 461.7628910525897, "h": 2.8e6, "s": 6635.008512392816, "v": 0.1995152921005486, "w": 508.57010701275794, "cp": 2546.943705858392, "region": 2}, nil},
+		// python3-iapws: IAPWS97(P=(150 psi + 101325 Pa) in MPa, x=1) -> T 458.6345956772081 K;
+		// 1 psi = 6894.757293168 Pa (NIST SP 811), atmosphere 101.325 kPa (the default).
+		{[]string{"--json", "p=150psig", "x=1"},
+			map[string]float64{"p": 150*6894.757293168361 + 101325, "T": 458.6345956772081, "region": 4}, 1.0},
+		// python3-iapws: IAPWS97(T=373.15, x=0.5) -> P 0.10141797792131013 MPa, h 1547.3355921092682 kJ/kg.
+		{[]string{"--json", "T=100C", "x=50%"},
+			map[string]float64{"p": 101417.97792131013, "T": 373.15, "h": 1547335.5921092682, "region": 4}, 0.5},
+	}
+	for _, tt := range tests {
+		var out, errb bytes.Buffer
+		if code := run(append([]string{"props"}, tt.args...), nil, &out, &errb); code != 0 {
+			t.Errorf("%v: exit %d: %s", tt.args, code, errb.String())
+			continue
+		}
+		var got map[string]any
+		if err := json.Unmarshal(out.Bytes(), &got); err != nil {
+			t.Errorf("%v: %v: %s", tt.args, err, out.String())
+			continue
+		}
+		for k, want := range tt.want {
+			g, ok := got[k].(float64)
+			if !ok || math.Abs(g-want) > 1e-9*math.Abs(want) {
+				t.Errorf("%v: %s = %v, want %.12g", tt.args, k, got[k], want)
+			}
+		}
+		if tt.x == nil && got["x"] != nil {
+			t.Errorf("%v: x = %v, want null for a single-phase state", tt.args, got["x"])
+		}
+		if xf, ok := tt.x.(float64); ok {
+			if g, _ := got["x"].(float64); math.Abs(g-xf) > 1e-12 {
+				t.Errorf("%v: x = %v, want %v", tt.args, got["x"], xf)
+			}
+		}
+	}
+}
+
+// TestPropsText checks the readable table: US units inferred from what was typed.
+func TestPropsText(t *testing.T) {
+	tests := []struct {
+		args []string
+		want []string
+	}{
+		// Steam at 14.696 psia and 600 F: h about 1335 Btu/lbm (common practice, no source);
+		// python3-iapws gives 1335.284765629821 Btu/lbm (kJ/kg / 2.326).
+		{[]string{"p=14.696psia", "T=600F"}, []string{"superheated vapour", "1335.28 Btu/lbm", "600.000 F"}},
+		// python3-iapws: 150 psig saturated steam boils at 365.8722722189746 F, hg 1195.9659 Btu/lbm.
+		{[]string{"p=150psig", "x=1"}, []string{"saturated vapour", "365.872 F", "1195.97 Btu/lbm", "150.000 psig"}},
+		// python3-iapws: the same state is 458.6345956772081 K = 185.4846 C.
+		{[]string{"--si", "p=150psig", "x=1"}, []string{"185.485 C"}},
+	}
+	for _, tt := range tests {
+		var out, errb bytes.Buffer
+		if code := run(append([]string{"props"}, tt.args...), nil, &out, &errb); code != 0 {
+			t.Errorf("%v: exit %d: %s", tt.args, code, errb.String())
+			continue
+		}
+		for _, w := range tt.want {
+			if !strings.Contains(strings.Join(strings.Fields(out.String()), " "), w) {
+				t.Errorf("%v: output lacks %q:\n%s", tt.args, w, out.String())
+			}
+		}
+	}
+}
+
+// TestPropsErrors: bad input exits 2 with one line that says what is wrong.
+func TestPropsErrors(t *testing.T) {
+	tests := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"p=1MPa"}, "two"},
+		{[]string{"p=1MPa", "T=300"}, "unit"},
+		{[]string{"p=1MPa", "T=300degG"}, "did you mean"},
+		{[]string{"p=40lbm/h", "T=300C"}, "mass flow"},
+		{[]string{"p=200MPa", "T=300C"}, "MPa"},
+		{[]string{"p=1MPa", "x=1.5"}, "x"},
+		{[]string{"p=-20psig", "x=1"}, "pressure"},
+		{[]string{"q=1", "x=1"}, "q"},
+	}
+	for _, tt := range tests {
+		var out, errb bytes.Buffer
+		code := run(append([]string{"props"}, tt.args...), nil, &out, &errb)
+		msg := errb.String()
+		if code != 2 || strings.Count(strings.TrimSpace(msg), "\n") != 0 || !strings.Contains(msg, tt.want) {
+			t.Errorf("%v: exit %d, stderr %q; want exit 2 and one line mentioning %q", tt.args, code, msg, tt.want)
+		}
+		if out.Len() != 0 {
+			t.Errorf("%v: wrote %q to stdout on error", tt.args, out.String())
+		}
+	}
+}
