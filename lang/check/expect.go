@@ -72,7 +72,7 @@ func (c *checker) expect(e *ast.Expect) {
 		p, ok := propByName[prop]
 		if !ok {
 			d := c.errorf(CodeUnknownResult, e.Prop, "a stream has no property %s (it has %s)", prop, joinOr(StreamProps))
-			suggest(d, prop, StreamProps)
+			suggestProp(d, prop, StreamProps)
 			return
 		}
 		x.Stream = o.Index
@@ -105,6 +105,16 @@ func (c *checker) expect(e *ast.Expect) {
 	} else {
 		v, un, ok := c.convert(e.Value, dim, what, false)
 		if !ok {
+			return
+		}
+		// A comparison may name a bound no state reaches (x > 0, p > 0 bar); only a flow, absolute
+		// pressure or temperature below zero, or a quality outside 0..1, can never be met.
+		// (Enthalpy and entropy may be below zero: IAPWS-IF97 sets them near zero at the
+		// triple-point liquid, and liquid at 0 °C lies slightly below.)
+		switch sp := propByName[prop]; {
+		case o.IsUnit || sp == model.H || sp == model.S:
+		case v < 0 || sp == model.X && v > 1:
+			c.plausible(sp, e.Value, v, un)
 			return
 		}
 		x.Value, u = v, un

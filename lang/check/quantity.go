@@ -86,6 +86,11 @@ func (c *checker) tolerance(t *ast.Tol, val *ast.Quantity, u units.Unit, want un
 	if a.Unit != nil && a.Unit.Name == "%" && want != units.Dimensionless {
 		return u.DeltaToSI(math.Abs(val.Value) * a.Value / 100), true
 	}
+	if a.Unit == nil && want != units.Dimensionless && !math.IsInf(a.Value, 0) {
+		c.errorf(CodeNoUnit, a, "the tolerance %s of %s has no unit: give it in %% or in a unit of %s, such as %s",
+			a.Raw, what, want, examples(want))
+		return 0, false
+	}
 	tu, ok := c.unitOf(a, want, "the tolerance of "+what, true)
 	if !ok {
 		return 0, false

@@ -1,7 +1,9 @@
 package check
 
 import (
+	"fmt"
 	"slices"
+	"strings"
 
 	"hmb/lang/ast"
 	"hmb/thermo/model"
@@ -12,6 +14,27 @@ import (
 var StreamKeys = [...]string{"flow", "p", "T", "h", "s", "x", "fluid"}
 
 var propByName = map[string]model.Prop{"flow": model.Flow, "p": model.P, "T": model.T, "h": model.H, "s": model.S, "x": model.X}
+
+// propWords maps the words of the trade, written out, to the notation's short property names:
+// their edit distance is too large for a spelling suggestion to find them. (One-letter names in
+// the wrong case, P for p, are found by the spelling suggestion.)
+var propWords = map[string]string{
+	"temperature": "T", "temp": "T",
+	"pressure": "p", "pres": "p", "press": "p",
+	"quality": "x", "dryness": "x",
+	"enthalpy": "h", "entropy": "s",
+	"mass_flow": "flow", "massflow": "flow", "m": "flow", "mdot": "flow",
+}
+
+// suggestProp adds the property a misspelt or written-out name stands for.
+func suggestProp(d *model.Diagnostic, word string, candidates []string) {
+	if p, ok := propWords[strings.ToLower(word)]; ok && slices.Contains(candidates, p) {
+		d.Message += fmt.Sprintf("; did you mean %s?", p)
+		d.Fix = p
+		return
+	}
+	suggest(d, word, candidates)
+}
 
 // streams lowers every declared stream with its givens.
 func (c *checker) streams() {
@@ -50,7 +73,7 @@ func (c *checker) streamEntry(st *model.Stream, e ast.Entry, seen *[len(StreamKe
 	ki := slices.Index(StreamKeys[:], key.Name)
 	if ki < 0 {
 		d := c.errorf(CodeUnknownParam, key, "a stream has no property %s (it takes flow, p, T, h, s, x and fluid)", key.Name)
-		suggest(d, key.Name, StreamKeys[:])
+		suggestProp(d, key.Name, StreamKeys[:])
 		return
 	}
 	if prev := seen[ki]; prev != nil {

@@ -98,8 +98,17 @@ func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 					c.errorf(CodeEntryForm, e, "%s takes a number with its unit, not names", role)
 					continue
 				}
-				d := c.errorf(CodeUnknownRole, e.Key, "a %s has no role %s (roles: %s)", k.Name, role, roles(k))
-				suggest(d, role, Keys(k))
+				d := c.errorf(CodeUnknownRole, e.Key, "%s has no role %s (roles: %s)", article(k.Name), role, roles(k))
+				if r := longRole(k, role); r != "" {
+					d.Message += fmt.Sprintf("; did you mean %s?", r)
+					d.Fix = r
+				} else {
+					suggest(d, role, Keys(k))
+				}
+				if d.Fix != "" && k.Port(d.Fix) != nil {
+					// The port is there, misspelt: reporting it missing too would say it twice.
+					mentioned = append(mentioned, d.Fix)
+				}
 				continue
 			}
 			if prev, dup := find(roleSeen, role); dup && !spec.Many {
@@ -152,6 +161,27 @@ func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 	return u
 }
 
+// longRole recognises a role written out as the trade's word (inlet, outlet, hot_inlet): the
+// notation's short role names are the word without "let".
+func longRole(k *model.Kind, word string) string {
+	short, ok := strings.CutSuffix(word, "let")
+	if !ok {
+		return ""
+	}
+	if k.Port(short) != nil {
+		return short
+	}
+	return ""
+}
+
+// article puts "a" or "an" before a kind's name (an exchanger, a heater).
+func article(kind string) string {
+	if kind != "" && strings.ContainsRune("aeiou", rune(kind[0])) {
+		return "an " + kind
+	}
+	return "a " + kind
+}
+
 func roles(k *model.Kind) string {
 	var rs []string
 	for _, p := range k.Ports {
@@ -182,7 +212,7 @@ func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[a
 		if len(ps) > 0 {
 			list = strings.Join(ps, ", ")
 		}
-		d := c.errorf(CodeUnknownParam, g.Key, "a %s has no parameter %s (parameters: %s)", k.Name, name, list)
+		d := c.errorf(CodeUnknownParam, g.Key, "%s has no parameter %s (parameters: %s)", article(k.Name), name, list)
 		suggest(d, name, Keys(k))
 		return seen, false
 	}

@@ -16,6 +16,11 @@ const (
 // file must not grow it without end. Past the bound, pieces are parsed without caching.
 const maxShapes = 1 << 14
 
+// maxShapeLen bounds a cached shape's key (a production tag, then a byte per token): a long piece (a list of a hundred stream
+// names, a line of pasted numbers) is rare and would make a key as long as itself, so that a
+// language server running for days could hold megabytes per entry.
+const maxShapeLen = 64
+
 // shapeCache maps a piece's shape to participle's result for it (a *G template or a *parseErr).
 // It is shared by every parse in the process: the language server parses concurrently.
 type shapeCache struct {

@@ -11,6 +11,7 @@ const (
 	CodeUnclosed     = "P104"
 	CodeStrayBrace   = "P105"
 	CodeMissingValue = "P106"
+	CodeTooMany      = "P107"
 )
 
 // Codes documents the parser's diagnostic codes.
@@ -21,4 +22,5 @@ var Codes = []model.CodeInfo{
 	{Code: CodeUnclosed, Severity: model.Error, Summary: "block opened with { and not closed with }"},
 	{Code: CodeStrayBrace, Severity: model.Error, Summary: "} with no block open"},
 	{Code: CodeMissingValue, Severity: model.Error, Summary: "name or keyword alone on its line, with no value after it"},
+	{Code: CodeTooMany, Severity: model.Error, Summary: "syntax errors past the first 100, counted in one diagnostic"},
 }

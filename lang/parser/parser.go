@@ -43,8 +43,26 @@ func Parse(filename string, src []byte) (*ast.File, []model.Diagnostic) {
 	}
 	p.parseFile()
 	slices.SortStableFunc(p.diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
+	if len(p.diags) > MaxErrors || p.dropped > 0 {
+		more := len(p.diags) - MaxErrors + p.dropped
+		at := p.diags[MaxErrors].Span.Start
+		p.diags = append(p.diags[:MaxErrors], model.Diagnostic{Span: model.Span{Start: at, End: at},
+			Severity: model.Error, Code: CodeTooMany,
+			Message: fmt.Sprintf("%d more syntax errors from here on are not reported", more)})
+	}
 	return p.file, p.diags
 }
+
+// MaxErrors bounds the syntax errors Parse reports; one more diagnostic says how many were left
+// out. A file of five megabytes of braces would otherwise make ten million diagnostics, more
+// than an editor can show or a person read. Parsing goes on past the bound, so that the checker
+// still sees every statement.
+const MaxErrors = 100
+
+// keepErrors bounds the syntax errors held before sorting: errors arrive nearly in source order
+// (the scanner's first), so ten times the reported number leaves room to pick the first by
+// position while holding memory to a few hundred kilobytes.
+const keepErrors = 10 * MaxErrors
 
 type parser struct {
 	src     []byte
@@ -52,6 +70,7 @@ type parser struct {
 	toks    []token.Token
 	file    *ast.File
 	diags   []model.Diagnostic
+	dropped int           // syntax errors past keepErrors, counted but not kept
 	piece   []token.Token // scratch: the significant tokens of the current piece
 	entries []ast.Entry   // scratch: the entries of the current block
 
@@ -72,9 +91,15 @@ func (s *slab[T]) new() *T {
 	return &s.buf[len(s.buf)-1]
 }
 
-func (p *parser) errorf(code string, pos, end int, format string, args ...any) {
+// errorf reports a syntax error; it returns the diagnostic, or nil when too many are held already.
+func (p *parser) errorf(code string, pos, end int, format string, args ...any) *model.Diagnostic {
+	if len(p.diags) >= keepErrors {
+		p.dropped++
+		return nil
+	}
 	p.diags = append(p.diags, model.Diagnostic{Span: model.Span{Start: pos, End: end},
 		Severity: model.Error, Code: code, Message: fmt.Sprintf(format, args...)})
+	return &p.diags[len(p.diags)-1]
 }
 
 func (p *parser) text(t token.Token) string { return p.str[t.Pos:t.End] }
@@ -230,9 +255,8 @@ func (p *parser) unclosed(b *ast.Block, owner ast.Stmt, next int) {
 	case *ast.UnitDecl:
 		what = "block of " + s.Kind.Name + " " + s.Name.Name
 	}
-	p.errorf(CodeUnclosed, b.Lbrace, b.Lbrace+1, "%s is not closed: missing }", what)
-	if next >= 0 {
-		d := &p.diags[len(p.diags)-1]
+	d := p.errorf(CodeUnclosed, b.Lbrace, b.Lbrace+1, "%s is not closed: missing }", what)
+	if next >= 0 && d != nil {
 		d.Related = []model.Related{{Span: model.Span{Start: next, End: next}, Message: "the next statement starts here"}}
 	}
 }
@@ -412,7 +436,9 @@ func parsePiece[G any](p *parser, prod byte, gp *participle.Parser[G], piece []t
 	r, ok := cache.get(key)
 	if !ok {
 		r = runParticiple(p, gp, piece)
-		cache.put(string(key), r)
+		if len(key) <= maxShapeLen {
+			cache.put(string(key), r)
+		}
 	}
 	if e, isErr := r.(*parseErr); isErr {
 		return nil, p.syntaxError(piece, e, what)

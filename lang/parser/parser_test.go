@@ -1,0 +1,225 @@
+package parser_test
+
+import (
+	"fmt"
+	"strings"
+	"testing"
+
+	"hmb/lang/ast"
+	"hmb/lang/parser"
+	"hmb/thermo/model"
+)
+
+// locate finds the span a pattern names in src: the first occurrence of the text, or, written
+// "before|text", of text just after the first occurrence of before. "before|" alone is the empty
+// span after before.
+func locate(t *testing.T, src, at string) model.Span {
+	t.Helper()
+	before, text, ok := strings.Cut(at, "|")
+	if !ok {
+		before, text = "", at
+	}
+	i := strings.Index(src, before)
+	if i < 0 {
+		t.Fatalf("pattern %q: %q is not in the source", at, before)
+	}
+	i += len(before)
+	j := strings.Index(src[i:], text)
+	if j < 0 {
+		t.Fatalf("pattern %q: %q is not in the source after %q", at, text, before)
+	}
+	return model.Span{Start: i + j, End: i + j + len(text)}
+}
+
+type want struct{ code, at, msg, rel string }
+
+// TestDiagnostics checks each syntax diagnostic's code, exact range and message, and that
+// nothing else is reported.
+func TestDiagnostics(t *testing.T) {
+	tests := []struct {
+		name, src string
+		want      []want
+	}{
+		{"control character", "stream A { p 1 bar }\x01",
+			[]want{{"P101", "\x01", "unexpected control character", ""}}},
+		{"invalid UTF-8", "stream A { p 1 bar \xff }",
+			[]want{{"P101", "\xff", "invalid UTF-8 encoding", ""}}},
+		{"string not closed", "stream A \"main steam\nstream B",
+			[]want{{"P102", "\"main steam", "string not terminated before the end of the line", ""}}},
+		{"statement starting with a number", "12 x\nstream A",
+			[]want{{"P103", "12 x", "unexpected number \"12\": a statement starts with stream, expect, a unit kind or a setting", ""}}},
+		{"extra number in an entry", "stream A {\n  T 100 C 5\n}",
+			[]want{{"P103", "C |5", "unexpected number \"5\" in entry: expected the end of the line", ""}}},
+		{"two tolerances", "stream A { T 300 F ± 2 F ± 3 F }",
+			[]want{{"P103", "2 F |± 3 F", "unexpected \"±\" in entry: expected the end of the line", ""}}},
+		{"tolerance without its amount", "stream A { p 3 bar ± }",
+			[]want{{"P103", "±|", "entry ends too early: expected a number", ""}}},
+		{"stream keyword alone", "stream",
+			[]want{{"P103", "stream|", "stream declaration ends too early: expected a name", ""}}},
+		{"list of streams ending in a comma", "stream A,",
+			[]want{{"P103", "A,|", "stream declaration ends too early: expected a name", ""}}},
+		{"unit without a name", "valve { in A }",
+			[]want{{"P103", "{", "unexpected \"{\" in unit declaration: expected a name", ""}}},
+		{"two labels on a unit", "valve V \"x\" \"y\" { }",
+			[]want{{"P103", "\"y\" {", "unexpected string \"\\\"y\\\"\" in unit declaration: expected {", ""}}},
+		{"expectation without a comparison", "expect S1 x",
+			[]want{{"P103", "S1 x|", "expectation ends too early: expected =, <, <=, >, >=", ""}}},
+		{"expectation with ==", "expect S1 x == 3",
+			[]want{{"P103", "x =|= 3", "unexpected \"=\" in expectation: expected a number", ""}}},
+		{"within without an amount", "expect S1 x = 0.9 within",
+			[]want{{"P103", "within|", "expectation ends too early: expected a number", ""}}},
+		{"block not closed before the next statement", "stream A { p 3 bar\nvalve V { in A; out B }",
+			[]want{{"P104", "{", "block of stream A is not closed: missing }", "bar\n|"}}},
+		{"block not closed at the end", "valve V1 { in A",
+			[]want{{"P104", "{", "block of valve V1 is not closed: missing }", ""}}},
+		{"stray brace", "stream A { p 3 bar } }",
+			[]want{{"P105", "bar } |}", "} with no block open", ""}}},
+		{"key without a value in a block", "stream D {\n  p\n  T 100 C\n}",
+			[]want{{"P106", "p", "p has no value after it", ""}}},
+		{"setting without a value", "title",
+			[]want{{"P106", "title", "title has no value after it", ""}}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, diags := parser.Parse("t.hmb", []byte(tt.src))
+			got := diags
+			for _, w := range tt.want {
+				span := locate(t, tt.src, w.at)
+				k := -1
+				for i, d := range got {
+					if d.Code == w.code && d.Span == span && d.Message == w.msg && d.Severity == model.Error {
+						k = i
+						break
+					}
+				}
+				if k < 0 {
+					t.Errorf("no %s at %q [%d,%d) with message %q; got:%s", w.code, w.at, span.Start, span.End, w.msg, list(got))
+					continue
+				}
+				d := got[k]
+				got = append(got[:k:k], got[k+1:]...)
+				switch {
+				case w.rel == "" && len(d.Related) > 0:
+					t.Errorf("%s: unexpected related range %v", w.code, d.Related)
+				case w.rel != "" && (len(d.Related) == 0 || d.Related[0].Span != locate(t, tt.src, w.rel)):
+					t.Errorf("%s: related %v, want %q", w.code, d.Related, w.rel)
+				}
+			}
+			if len(got) > 0 {
+				t.Errorf("unexpected diagnostics:%s", list(got))
+			}
+		})
+	}
+}
+
+func list(ds []model.Diagnostic) string {
+	var b strings.Builder
+	for _, d := range ds {
+		fmt.Fprintf(&b, "\n\t%s [%d,%d) %s", d.Code, d.Span.Start, d.Span.End, d.Message)
+	}
+	return b.String()
+}
+
+// TestRecovery checks that a broken statement costs only itself: the statements after it are
+// parsed in full.
+func TestRecovery(t *testing.T) {
+	tests := []struct {
+		name, src string
+		codes     []string // the diagnostics, in order
+		stmts     string   // the statements parsed, summarised
+	}{
+		{"broken statement between two streams",
+			"stream A { p 1 bar }\n12 x\nstream B { T 20 C }",
+			[]string{"P103"}, "stream A [p] | bad | stream B [T]"},
+		{"broken entry inside a block",
+			"stream A {\n  p 1 bar bar\n  T 20 C\n}\nvalve V { in A; out B }",
+			[]string{"P103"}, "stream A [bad T] | valve V [in out]"},
+		{"unclosed block closed by the next statement",
+			"stream A { p 1 bar\nvalve V { in A; out B }\nexpect B x = 1",
+			[]string{"P104"}, "stream A [p] | valve V [in out] | expect B x"},
+		{"unclosed string keeps the block",
+			"stream A \"main { p 1 bar }\nstream B { T 20 C }",
+			[]string{"P102"}, "stream A | stream B [T]"},
+		{"stray brace skipped",
+			"}\nstream A { p 1 bar }",
+			[]string{"P105"}, "stream A [p]"},
+		{"half-typed last statement",
+			"stream A { p 1 bar }\nvalve V { in A; out",
+			[]string{"P104", "P106"}, "stream A [p] | valve V [in bad]"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			f, diags := parser.Parse("t.hmb", []byte(tt.src))
+			var codes []string
+			for _, d := range diags {
+				codes = append(codes, d.Code)
+			}
+			if strings.Join(codes, " ") != strings.Join(tt.codes, " ") {
+				t.Errorf("codes %v, want %v:%s", codes, tt.codes, list(diags))
+			}
+			if got := summarise(f); got != tt.stmts {
+				t.Errorf("statements\n got %s\nwant %s", got, tt.stmts)
+			}
+		})
+	}
+}
+
+func summarise(f *ast.File) string {
+	var parts []string
+	block := func(b *ast.Block) string {
+		if b == nil {
+			return ""
+		}
+		var es []string
+		for _, e := range b.Entries {
+			switch e := e.(type) {
+			case *ast.Given:
+				es = append(es, e.Key.Name)
+			case *ast.Names:
+				es = append(es, e.Key.Name)
+			default:
+				es = append(es, "bad")
+			}
+		}
+		return " [" + strings.Join(es, " ") + "]"
+	}
+	for _, s := range f.Stmts {
+		switch s := s.(type) {
+		case *ast.StreamDecl:
+			parts = append(parts, "stream "+s.Name.Name+block(s.Block))
+		case *ast.UnitDecl:
+			parts = append(parts, s.Kind.Name+" "+s.Name.Name+block(s.Block))
+		case *ast.Expect:
+			parts = append(parts, "expect "+s.Target.Name+" "+s.Prop.Name)
+		case *ast.Setting:
+			parts = append(parts, "setting "+s.Key.Name)
+		default:
+			parts = append(parts, "bad")
+		}
+	}
+	return strings.Join(parts, " | ")
+}
+
+// TestTooManyErrors: past MaxErrors, one diagnostic counts the rest, placed at the first one left
+// out; the statements after are still parsed.
+func TestTooManyErrors(t *testing.T) {
+	const n = parser.MaxErrors + 7
+	src := strings.Repeat("}\n", n) + "stream A { p 1 bar }"
+	f, diags := parser.Parse("t.hmb", []byte(src))
+	if len(diags) != parser.MaxErrors+1 {
+		t.Fatalf("got %d diagnostics, want %d", len(diags), parser.MaxErrors+1)
+	}
+	for i, d := range diags[:parser.MaxErrors] {
+		if d.Code != "P105" || d.Span.Start != 2*i {
+			t.Fatalf("diagnostic %d: %s at %d, want P105 at %d", i, d.Code, d.Span.Start, 2*i)
+		}
+	}
+	last := diags[parser.MaxErrors]
+	at := 2 * parser.MaxErrors
+	if last.Code != "P107" || last.Span != (model.Span{Start: at, End: at}) || last.Message != "7 more syntax errors from here on are not reported" {
+		t.Errorf("last diagnostic %s %v %q", last.Code, last.Span, last.Message)
+	}
+	if got := summarise(f); got != "stream A [p]" {
+		t.Errorf("statements %s, want stream A [p]", got)
+	}
+}
