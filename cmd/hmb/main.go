@@ -24,6 +24,12 @@ usage:
   hmb props [--si|--us] [--json] NAME=VALUE NAME=VALUE
         water/steam state from two properties, e.g. hmb props p=150psig x=1
         names: p T h s x (and v or u are not accepted as inputs)
+  hmb table [--format md|csv|html] [--si|--us] [-o OUT] FILE
+        stream and unit tables of one solved calc file
+  hmb plot [--kind Ts|hs|ph] [--si|--us] [-o out.svg] FILE
+        property diagram (SVG) with the saturation dome, isobars, streams and units
+  hmb report [--si|--us] [-o out.html] FILE
+        one self-contained HTML page: caution, tables, diagrams, expectations, findings
   hmb version
 
 Results support, and do not replace, code-compliant design and review by a licensed engineer.
@@ -61,6 +67,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		err = runFmt(args[1:], stdout, stderr)
 	case "lsp":
 		err = runLSP(args[1:], stdin, stdout, stderr)
+	case "table":
+		err = runTable(args[1:], stdout, stderr)
+	case "plot":
+		err = runPlot(args[1:], stdout, stderr)
+	case "report":
+		err = runReport(args[1:], stdout, stderr)
 	case "version", "--version":
 		fmt.Fprintln(stdout, "hmb", version)
 		return 0

@@ -1,0 +1,37 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"io"
+
+	"hmb/thermo/report"
+)
+
+// runPlot draws a property diagram of one calc file as SVG.
+func runPlot(args []string, stdout, stderr io.Writer) error {
+	fset := flag.NewFlagSet("plot", flag.ContinueOnError)
+	fset.SetOutput(io.Discard)
+	kindArg := fset.String("kind", "Ts", "diagram: Ts, hs or ph")
+	out := fset.String("o", "", "write the SVG to this file instead of standard output")
+	sys := addSystemFlags(fset)
+	if err := fset.Parse(args); err != nil {
+		return usageErr("%v", err)
+	}
+	kind, err := report.ParseKind(*kindArg)
+	if err != nil {
+		return usageErr("%v", err)
+	}
+	in, err := loadReportInput(fset, sys, stderr)
+	if err != nil {
+		return err
+	}
+	var buf bytes.Buffer
+	if err := report.Plot(&buf, in, report.PlotOptions{Kind: kind}); err != nil {
+		return &exitError{code: 1, msg: err.Error()}
+	}
+	if err := emit(*out, buf.Bytes(), stdout); err != nil {
+		return err
+	}
+	return findingsExit(in)
+}

@@ -1,0 +1,148 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"flag"
+	"fmt"
+	"io"
+	"io/fs"
+	"os"
+	"path/filepath"
+
+	"hmb/thermo/model"
+	"hmb/thermo/report"
+	"hmb/thermo/units"
+)
+
+// runReport writes one self-contained HTML page for a calc file: tables, diagrams, findings.
+func runReport(args []string, stdout, stderr io.Writer) error {
+	fset := flag.NewFlagSet("report", flag.ContinueOnError)
+	fset.SetOutput(io.Discard)
+	out := fset.String("o", "", "write the page to this file instead of standard output")
+	sys := addSystemFlags(fset)
+	if err := fset.Parse(args); err != nil {
+		return usageErr("%v", err)
+	}
+	in, err := loadReportInput(fset, sys, stderr)
+	if err != nil {
+		return err
+	}
+	var buf bytes.Buffer
+	if err := report.WritePage(&buf, in, report.PageOptions{Version: version}); err != nil {
+		return &exitError{code: 1, msg: err.Error()}
+	}
+	if err := emit(*out, buf.Bytes(), stdout); err != nil {
+		return err
+	}
+	return findingsExit(in)
+}
+
+type systemFlags struct{ si, us *bool }
+
+func addSystemFlags(fset *flag.FlagSet) systemFlags {
+	return systemFlags{
+		si: fset.Bool("si", false, "show results in SI units"),
+		us: fset.Bool("us", false, "show results in US customary units"),
+	}
+}
+
+func (s systemFlags) display() (*units.System, error) {
+	switch {
+	case *s.si && *s.us:
+		return nil, usageErr("--si and --us exclude each other")
+	case *s.si:
+		v := units.SI
+		return &v, nil
+	case *s.us:
+		v := units.US
+		return &v, nil
+	}
+	return nil, nil
+}
+
+// loadReportInput checks the one file named on the command line. A file whose notation could not
+// be read into a model is an error (exit 1) with its diagnostics on stderr; a file that reads but
+// does not solve cleanly is still reported, with its findings.
+func loadReportInput(fset *flag.FlagSet, sys systemFlags, stderr io.Writer) (*report.Input, error) {
+	display, err := sys.display()
+	if err != nil {
+		return nil, err
+	}
+	if fset.NArg() != 1 {
+		return nil, usageErr("give exactly one calc file (got %d arguments)", fset.NArg())
+	}
+	path := fset.Arg(0)
+	src, err := os.ReadFile(path)
+	if err != nil {
+		return nil, &exitError{code: 2, msg: err.Error()}
+	}
+	c := checkModel(context.Background(), path, src, display)
+	if c.model == nil {
+		writeText(stderr, &fileResult{path: path, src: src, diags: c.diags})
+		return nil, &exitError{code: 1, msg: fmt.Sprintf("%s could not be read into a model", path)}
+	}
+	return &report.Input{Path: path, Src: src, Model: c.model, Result: c.res, Diags: c.diags}, nil
+}
+
+// emit writes output to stdout, or to path atomically.
+func emit(path string, data []byte, stdout io.Writer) error {
+	if path == "" || path == "-" {
+		_, err := stdout.Write(data)
+		return err
+	}
+	if err := writeNewFileAtomic(path, data); err != nil {
+		return &exitError{code: 2, msg: err.Error()}
+	}
+	return nil
+}
+
+// writeNewFileAtomic writes path through a temporary file in the same directory and a rename, so
+// a reader never sees half a page. Unlike rewriting a calc file in place, the target may not exist
+// yet; a new file gets mode 0644, an existing one keeps its mode.
+func writeNewFileAtomic(path string, data []byte) error {
+	mode := fs.FileMode(0o644)
+	if info, err := os.Stat(path); err == nil {
+		if !info.Mode().IsRegular() {
+			return fmt.Errorf("%s is not a regular file", path)
+		}
+		mode = info.Mode().Perm()
+	}
+	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return err
+	}
+	name := tmp.Name()
+	defer os.Remove(name) // no-op after a successful rename
+	if _, err := tmp.Write(data); err != nil {
+		tmp.Close()
+		return err
+	}
+	if err := tmp.Chmod(mode); err != nil {
+		tmp.Close()
+		return err
+	}
+	if err := tmp.Sync(); err != nil {
+		tmp.Close()
+		return err
+	}
+	if err := tmp.Close(); err != nil {
+		return err
+	}
+	return os.Rename(name, path)
+}
+
+// findingsExit gives the exit status after the output is written: 1 when the file has errors,
+// as hmb check would, so a script notices; the output itself was written either way.
+func findingsExit(in *report.Input) error {
+	n := 0
+	for _, d := range in.Diags {
+		if d.Severity == model.Error {
+			n++
+		}
+	}
+	if n > 0 {
+		return &exitError{code: 1, msg: fmt.Sprintf("%s has %d error(s); output written (hmb check lists them)", in.Path, n)}
+	}
+	return nil
+}

@@ -1,0 +1,39 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"io"
+
+	"hmb/thermo/report"
+)
+
+// runTable prints the solved stream and unit tables of one calc file.
+func runTable(args []string, stdout, stderr io.Writer) error {
+	fset := flag.NewFlagSet("table", flag.ContinueOnError)
+	fset.SetOutput(io.Discard)
+	format := fset.String("format", "md", "output format: md, csv or html")
+	out := fset.String("o", "", "write to this file instead of standard output")
+	sys := addSystemFlags(fset)
+	if err := fset.Parse(args); err != nil {
+		return usageErr("%v", err)
+	}
+	write := map[string]func(io.Writer, *report.Input) error{
+		"md": report.WriteMarkdown, "csv": report.WriteCSV, "html": report.WriteHTML,
+	}[*format]
+	if write == nil {
+		return usageErr("unknown --format %q: use md, csv or html", *format)
+	}
+	in, err := loadReportInput(fset, sys, stderr)
+	if err != nil {
+		return err
+	}
+	var buf bytes.Buffer
+	if err := write(&buf, in); err != nil {
+		return &exitError{code: 1, msg: err.Error()}
+	}
+	if err := emit(*out, buf.Bytes(), stdout); err != nil {
+		return err
+	}
+	return findingsExit(in)
+}

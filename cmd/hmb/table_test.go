@@ -1,0 +1,185 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/xml"
+	"flag"
+	"io"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// The report tests share the package's -update flag; it is registered here only when no other
+// test file of the package has done so.
+func init() {
+	if flag.Lookup("update") == nil {
+		flag.Bool("update", false, "rewrite the golden files")
+	}
+}
+
+func reportUpdate() bool {
+	f := flag.Lookup("update")
+	return f != nil && f.Value.String() == "true"
+}
+
+const (
+	reportExamples = "../../testdata/examples"
+	reportGoldens  = "../../testdata/report"
+)
+
+func exampleFiles(t *testing.T) []string {
+	t.Helper()
+	files, err := filepath.Glob(filepath.Join(reportExamples, "*.hmb"))
+	if err != nil || len(files) == 0 {
+		t.Fatalf("no examples in %s: %v", reportExamples, err)
+	}
+	return files
+}
+
+// reportGolden compares got with testdata/report/name, or rewrites it under -update.
+func reportGolden(t *testing.T, name string, got []byte) {
+	t.Helper()
+	path := filepath.Join(reportGoldens, name)
+	if reportUpdate() {
+		if err := writeNewFileAtomic(path, got); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (go test ./cmd/hmb -run %s -update creates it; review it before committing)", err, t.Name())
+	}
+	if !bytes.Equal(got, want) {
+		t.Errorf("%s differs (go test ./cmd/hmb -run %s -update rewrites it after review):\n%s", path, t.Name(), got)
+	}
+}
+
+// runReportCmd runs one hmb subcommand and returns its exit status, stdout and stderr.
+func runReportCmd(args ...string) (int, []byte, string) {
+	var out, errb bytes.Buffer
+	code := run(args, nil, &out, &errb)
+	return code, out.Bytes(), errb.String()
+}
+
+// TestTableGolden keeps the tables of every example as reviewed golden files. The examples are
+// invented demos; the numbers in them are checked against python3-iapws in the report package's
+// own tests, these goldens only pin what a reviewer has seen.
+func TestTableGolden(t *testing.T) {
+	for _, f := range exampleFiles(t) {
+		base := strings.TrimSuffix(filepath.Base(f), ".hmb")
+		for _, format := range []string{"md", "csv", "html"} {
+			t.Run(base+"."+format, func(t *testing.T) {
+				code, out, stderr := runReportCmd("table", "--format", format, f)
+				if code == 2 {
+					t.Fatalf("exit 2: %s", stderr)
+				}
+				reportGolden(t, base+".table."+format, out)
+			})
+		}
+	}
+}
+
+// TestTableCSVParses reads each example's CSV back with encoding/csv: two sections, each a row
+// of names, a row of units and rows of equal length whose numeric cells parse as numbers.
+func TestTableCSVParses(t *testing.T) {
+	for _, f := range exampleFiles(t) {
+		for _, sys := range []string{"--si", "--us"} {
+			_, out, stderr := runReportCmd("table", "--format", "csv", sys, f)
+			if len(out) == 0 {
+				t.Fatalf("%s %s: no output: %s", f, sys, stderr)
+			}
+			sections := strings.Split(strings.TrimSuffix(string(out), "\n"), "\n\n")
+			if len(sections) != 2 {
+				t.Fatalf("%s: %d sections", f, len(sections))
+			}
+			for k, sec := range sections {
+				recs, err := csv.NewReader(strings.NewReader(sec)).ReadAll() // equal lengths enforced
+				if err != nil {
+					t.Fatalf("%s section %d: %v", f, k, err)
+				}
+				if len(recs) < 2 || recs[0][0] != []string{"stream", "unit"}[k] {
+					t.Fatalf("%s section %d: %q", f, k, recs)
+				}
+				units := recs[1]
+				if k == 0 && sys == "--us" && (units[2] != "lbm/h" || units[3] != "psia" || units[4] != "F") {
+					t.Errorf("%s: US unit row %q", f, units)
+				}
+				for _, rec := range recs[2:] {
+					for j, c := range rec {
+						if units[j] == "" && recs[0][j] != "x" || c == "" {
+							continue
+						}
+						if _, err := strconv.ParseFloat(c, 64); err != nil {
+							t.Errorf("%s: %s %q is not a number", f, recs[0][j], c)
+						}
+					}
+				}
+			}
+		}
+	}
+}
+
+// TestTableHTMLWellFormed parses each example's HTML table page as XML.
+func TestTableHTMLWellFormed(t *testing.T) {
+	for _, f := range exampleFiles(t) {
+		_, out, stderr := runReportCmd("table", "--format", "html", f)
+		if err := xmlWellFormed(out); err != nil {
+			t.Errorf("%s: %v\n%s", f, err, stderr)
+		}
+	}
+}
+
+// xmlWellFormed reads a document to its end with a strict XML decoder.
+func xmlWellFormed(data []byte) error {
+	d := xml.NewDecoder(bytes.NewReader(data))
+	d.Strict = true
+	depth, roots := 0, 0
+	for {
+		tok, err := d.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			return err
+		}
+		switch tok.(type) {
+		case xml.StartElement:
+			if depth == 0 {
+				roots++
+			}
+			depth++
+		case xml.EndElement:
+			depth--
+		}
+	}
+	if roots != 1 || depth != 0 {
+		return &xml.SyntaxError{Msg: "want exactly one root element", Line: 0}
+	}
+	return nil
+}
+
+func TestTableUsage(t *testing.T) {
+	for _, tt := range []struct {
+		args []string
+		code int
+		msg  string
+	}{
+		{[]string{"table"}, 2, "exactly one calc file"},
+		{[]string{"table", "a.hmb", "b.hmb"}, 2, "exactly one calc file"},
+		{[]string{"table", "--format", "xlsx", "x.hmb"}, 2, "unknown --format"},
+		{[]string{"table", "--si", "--us", "x.hmb"}, 2, "exclude each other"},
+		{[]string{"table", "no/such/file.hmb"}, 2, "no such file"},
+		{[]string{"plot", "--kind", "pv", "x.hmb"}, 2, "unknown diagram kind"},
+		{[]string{"report", "--bogus", "x.hmb"}, 2, "bogus"},
+	} {
+		code, _, stderr := runReportCmd(tt.args...)
+		if code != tt.code || !strings.Contains(stderr, tt.msg) {
+			t.Errorf("%v: exit %d, stderr %q; want %d and %q", tt.args, code, stderr, tt.code, tt.msg)
+		}
+	}
+}
