@@ -1,0 +1,51 @@
+" Syntax for hmb calc files (heat and material balances of steam and water systems).
+if exists('b:current_syntax')
+  finish
+endif
+
+" Names are a letter or _, then letters, digits, _ or -.
+syn iskeyword @,48-57,_,-,192-255
+
+syn match   hmbComment   "#.*$" contains=@Spell
+syn region  hmbString    start=+"+ skip=+\\.+ end=+"+ end=+$+ contains=hmbEscape oneline
+syn match   hmbEscape    +\\.+ contained
+
+syn keyword hmbStatement stream nextgroup=hmbStreamDecl skipwhite
+syn match   hmbStreamDecl "\k\+\%(\s*,\s*\k\+\)*" contained contains=hmbComma
+syn keyword hmbStatement expect nextgroup=hmbTarget skipwhite
+syn match   hmbTarget    "\k\+" contained nextgroup=hmbProperty skipwhite
+syn keyword hmbSetting   title atmosphere elevation tolerance
+syn keyword hmbSetting   display nextgroup=hmbSystem skipwhite
+syn keyword hmbSystem    SI US contained
+syn keyword hmbKind      mixer splitter valve heater cooler boiler turbine pump exchanger flash desuperheater nextgroup=hmbUnitDecl skipwhite
+syn match   hmbUnitDecl  "\k\+" contained
+syn keyword hmbRole      in out hot_in hot_out cold_in cold_out vapor liquid steam water
+syn keyword hmbProperty  flow p T h s x efficiency duty power heat_loss dp dp_hot dp_cold fuel sgen
+syn keyword hmbProperty  fluid nextgroup=hmbFluid skipwhite
+syn keyword hmbFluid     water steam contained
+syn keyword hmbOperator  within
+syn match   hmbOperator  "<=\|>=\|[=<>]\|±\|+/-\|+-"
+syn match   hmbComma     "," contained
+
+" A number and the unit spelling after it: 150 psig, 9000 lbm/h, 480 °F, 1.2 kJ/(kg K).
+syn match   hmbNumber    "\k\@1<!\.\@1<![-+]\=\%(\d\+\%(\.\d*\)\=\|\.\d\+\)\%([eE][-+]\=\d\+\)\=" nextgroup=hmbUnit skipwhite
+syn match   hmbUnit      "\%(within\>\)\@![^ \t{},;#\"=<>±()0-9.+-]\%([^ \t{},;#\"=<>±(]\|([^)]*)\)*" contained
+
+hi def link hmbComment    Comment
+hi def link hmbString     String
+hi def link hmbEscape     SpecialChar
+hi def link hmbStatement  Statement
+hi def link hmbStreamDecl Identifier
+hi def link hmbTarget     Identifier
+hi def link hmbSetting    PreProc
+hi def link hmbSystem     Constant
+hi def link hmbKind       Type
+hi def link hmbUnitDecl   Function
+hi def link hmbRole       Label
+hi def link hmbProperty   Identifier
+hi def link hmbFluid      Constant
+hi def link hmbOperator   Operator
+hi def link hmbNumber     Number
+hi def link hmbUnit       Special
+
+let b:current_syntax = 'hmb'
