@@ -51,6 +51,17 @@ func (s *solveRun) overSpecified() {
 			}
 		}
 		givens := s.st.determining(sys, e)
+		if eq.Kind == EqMass {
+			// Around a closed loop one mass balance is the sum of the others whatever the
+			// values: it says something only where two stated flows meet in it.
+			var flows []int
+			for _, g := range givens {
+				if sys.Eqs[g].Stream >= 0 && sys.Eqs[g].Prop == model.Flow {
+					flows = append(flows, g)
+				}
+			}
+			givens = flows
+		}
 		var rel2 []model.Related
 		var by []string
 		for _, g := range givens {
@@ -73,8 +84,13 @@ func (s *solveRun) overSpecified() {
 			s.diag(model.Error, CodeConflict, eq.Span, fmt.Sprintf("%s conflicts: %s given, but %s follows from the rest%s; the difference is %s (%s)",
 				eq.Label, s.value(eq, rhs), s.value(eq, lhs), byText, s.f.dq(eq.Dim, diff), pct(rel)), rel2...)
 		default:
-			s.diag(model.Error, CodeNotClosed, eq.Span, fmt.Sprintf("%s does not close: %s %s, %s %s (%s)",
-				eq.Label, eq.LHS, s.value(eq, lhs), eq.RHS, s.value(eq, rhs), pct(rel)), rel2...)
+			over := ""
+			if len(by) > 0 {
+				// Name the givens that meet in the balance: one of them is wrong, or one too many.
+				over = "; over-specified by " + andList(by)
+			}
+			s.diag(model.Error, CodeNotClosed, eq.Span, fmt.Sprintf("%s does not close: %s %s, %s %s (%s)%s",
+				eq.Label, eq.LHS, s.value(eq, lhs), eq.RHS, s.value(eq, rhs), pct(rel), over), rel2...)
 		}
 	}
 }

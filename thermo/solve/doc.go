@@ -14,7 +14,7 @@
 // Every given is one equation (m = given, p = given, h = given, T(p,h) = given, s(p,h) = given,
 // x(p,h) = given) and every unit adds the equations documented in its own file (mixer.go,
 // valve.go, ...). Quality equations use the quality extended outside the dome,
-// x = (h - h'(p)) / (h”(p) - h'(p)), so that Newton sees a smooth function.
+// x = (h - h_liq(p)) / (h_vap(p) - h_liq(p)), so that Newton sees a smooth function.
 //
 // # Method
 //
@@ -28,5 +28,10 @@
 // directly by IF97.
 //
 // Givens are tried for the matching before unit equations, so when a balance is redundant it is
-// the balance, not a given, that is left over and reported as a closure.
+// the balance, not a given, that is left over and reported as a closure. One mass balance of each
+// closed loop (a cycle with no feed or product) is left out of the matching beforehand: the
+// balances of a loop sum to zero whatever the flows, a dependence no matching can see.
+//
+// A stream whose solved state lies on the saturation line (within 1e-8 in h) is reported as the
+// saturated liquid or vapour itself, quality exactly 0 or 1.
 package solve

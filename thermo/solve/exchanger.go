@@ -35,10 +35,10 @@ func buildExchanger(b *builder, u int) {
 
 // unitEqLabel prefixes the label of the equation add appends.
 func (b *builder) unitEqLabel(u int, prefix string, add func()) {
-	n := len(b.unitEqs)
+	n := len(b.sys.Eqs)
 	add()
-	for i := n; i < len(b.unitEqs); i++ {
-		b.unitEqs[i].Label = prefix + b.unitEqs[i].Label
+	for i := n; i < len(b.sys.Eqs); i++ {
+		b.sys.Eqs[i].Label = prefix + b.sys.Eqs[i].Label
 	}
 }
 

@@ -126,8 +126,15 @@ func (s *solveRun) expectValue(ex *model.Expect) (v float64, dim units.Dim, what
 			return r.Efficiency, units.Dimensionless, what, true
 		case "sgen":
 			return r.Sgen, sgenDim, what, true
+		case "heat_loss":
+			// Never solved, only given: an expectation on it checks the file against itself.
+			loss := 0.0
+			if g := s.m.Units[ex.Unit].Params["heat_loss"]; g != nil {
+				loss = g.Value
+			}
+			return loss, units.Power, what, true
 		}
-		s.diag(model.Error, CodeExpectUnknown, ex.Span, fmt.Sprintf("%q is not a unit result; use one of duty, power, fuel, efficiency, sgen", ex.Prop))
+		s.diag(model.Error, CodeExpectUnknown, ex.Span, fmt.Sprintf("%q is not a unit result; use one of duty, power, fuel, efficiency, heat_loss, sgen", ex.Prop))
 		return 0, 0, "", false
 	}
 	s.diag(model.Error, CodeExpectUnknown, ex.Span, "expectation names no stream or unit")

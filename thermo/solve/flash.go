@@ -1,6 +1,11 @@
 package solve
 
-import "hmb/thermo/units"
+import (
+	"fmt"
+
+	"hmb/thermo/model"
+	"hmb/thermo/units"
+)
 
 // Flash tank or separator: feeds k enter, saturated vapour and saturated liquid leave at the
 // tank pressure.
@@ -35,4 +40,16 @@ func finishFlash(c *unitCalc) {
 	}
 	c.res.Sgen = c.entropyFlow(ins, outs) + loss/T0
 	c.checkSgen()
+	// A negative outlet flow is already flagged on its stream; say why, in the tank's terms.
+	vs, mv, _ := c.state(outs[0])
+	_, ml, _ := c.state(outs[1])
+	tol := c.s.relTol * c.res.MassIn
+	switch {
+	case mv < -tol:
+		c.s.diag(model.Warning, CodeNegativeFlow, c.un.Span, fmt.Sprintf("%s: the feed is subcooled at the tank pressure %s, so nothing flashes (vapour flow %s)",
+			c.name(), c.s.f.q(units.Pressure, vs.P), c.s.f.q(units.MassFlow, mv)))
+	case ml < -tol:
+		c.s.diag(model.Warning, CodeNegativeFlow, c.un.Span, fmt.Sprintf("%s: the feed is superheated at the tank pressure %s, so no liquid is left (liquid flow %s)",
+			c.name(), c.s.f.q(units.Pressure, vs.P), c.s.f.q(units.MassFlow, ml)))
+	}
 }

@@ -16,8 +16,9 @@ const (
 
 // blockError says why a block was not solved.
 type blockError struct {
-	reason string
-	prop   error // the property library's error, when that was the cause
+	reason   string
+	prop     error // the property library's error, when that was the cause
+	singular bool  // the Jacobian was singular: the block's equations do not fix its unknowns
 }
 
 func (e *blockError) Error() string {
@@ -36,6 +37,21 @@ type newton struct {
 	solved  []bool
 	maxIter int
 	guess   func(v int) float64
+	// buf and g are reused from block to block: most blocks are one equation, and allocating
+	// their work arrays each time was a good part of solving a long chain.
+	buf []float64
+	g   []float64
+}
+
+// work returns zeroed residual, scale, Jacobian, step and start arrays for a block of k.
+func (n *newton) work(k int) (r, scale, jac, dx, x0 []float64) {
+	need := 4*k + k*k
+	if cap(n.buf) < need {
+		n.buf = make([]float64, need)
+	}
+	b := n.buf[:need]
+	clear(b)
+	return b[:k:k], b[k : 2*k : 2*k], b[2*k : 2*k+k*k : 2*k+k*k], b[2*k+k*k : 3*k+k*k : 3*k+k*k], b[3*k+k*k : need : need]
 }
 
 // solveBlock finds the unknowns vars so that the equations eqs hold, the other unknowns fixed.
@@ -58,14 +74,25 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 		n.x[v] = n.guess(v)
 	}
 	k := len(eqs)
-	r := make([]float64, k)
-	scale := make([]float64, k)
-	jac := make([]float64, k*k)
-	dx := make([]float64, k)
-	x0 := make([]float64, k)
-	col := map[int]int{}
-	for j, v := range vars {
-		col[v] = j
+	r, scale, jac, dx, x0 := n.work(k)
+	var colMap map[int]int
+	if k > 8 {
+		colMap = make(map[int]int, k)
+		for j, v := range vars {
+			colMap[v] = j
+		}
+	}
+	col := func(v int) (int, bool) {
+		if colMap != nil {
+			j, ok := colMap[v]
+			return j, ok
+		}
+		for j, w := range vars {
+			if w == v {
+				return j, true
+			}
+		}
+		return 0, false
 	}
 	eval := func(out []float64, keepScale bool) (float64, error) {
 		worst := 0.0
@@ -86,7 +113,8 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 	if err != nil {
 		return &blockError{reason: "cannot evaluate " + sys.Eqs[eqs[0]].Label + " at the first guess", prop: err}
 	}
-	g := make([]float64, 0, 8)
+	g := n.g[:0]
+	defer func() { n.g = g[:0] }()
 	for it := 0; ; it++ {
 		if norm <= tolScaled {
 			return nil
@@ -106,7 +134,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			}
 			sys.gradient(e, n.x, g)
 			for a, v := range eq.Vars {
-				if j, ok := col[v]; ok {
+				if j, ok := col(v); ok {
 					jac[i*k+j] += g[a] / scale[i]
 				}
 			}
@@ -115,7 +143,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			dx[i] = -r[i]
 		}
 		if !luSolve(jac, dx, k) {
-			return &blockError{reason: "the equations do not fix the unknowns here (singular Jacobian)"}
+			return &blockError{reason: "the equations do not fix the unknowns here (singular Jacobian)", singular: true}
 		}
 		for j, v := range vars {
 			x0[j] = n.x[v]

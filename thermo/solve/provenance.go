@@ -23,6 +23,7 @@ func (s *solveRun) provenance() {
 		r.Source[model.Flow] = of(sys.StreamVar(i, model.Flow))
 		r.Source[model.P] = of(sys.StreamVar(i, model.P))
 		r.Source[model.H] = of(sys.StreamVar(i, model.H))
+		derived := "" // shared by T, s and x: built once
 		for _, p := range []model.Prop{model.T, model.S, model.X} {
 			switch {
 			case !r.HasState:
@@ -30,8 +31,10 @@ func (s *solveRun) provenance() {
 			case st.Given[p] != nil:
 				r.Source[p] = Provenance{Kind: ProvGiven, Label: "given " + st.Name + " " + p.String(), Span: st.Given[p].Span, Unit: -1}
 			default:
-				r.Source[p] = Provenance{Kind: ProvDerived, Unit: -1,
-					Label: "IAPWS-IF97 from p (" + r.Source[model.P].Label + ") and h (" + r.Source[model.H].Label + ")"}
+				if derived == "" {
+					derived = "IAPWS-IF97 from p (" + r.Source[model.P].Label + ") and h (" + r.Source[model.H].Label + ")"
+				}
+				r.Source[p] = Provenance{Kind: ProvDerived, Unit: -1, Label: derived}
 			}
 		}
 	}

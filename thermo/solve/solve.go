@@ -2,6 +2,7 @@ package solve
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
 	"sort"
@@ -158,7 +159,7 @@ func (s *solveRun) run() {
 	s.b = build(s.m, s.f, s.relTol)
 	sys := s.b.sys
 	s.res.System = sys
-	s.st = analyse(sys, len(s.b.givenEqs))
+	s.st = analyse(sys)
 	s.x = make([]float64, len(sys.Vars))
 	for i := range s.x {
 		s.x[i] = math.NaN()
@@ -294,11 +295,37 @@ func (s *solveRun) blockFailed(blk, vars []int, err error) {
 		}
 	}
 	code := CodeNoConvergence
-	if be, ok := err.(*blockError); ok && be.prop != nil && len(blk) == 1 && sys.Eqs[blk[0]].Kind == EqGiven {
-		code = CodeOutsideIF97
-	}
 	eq := &sys.Eqs[blk[0]]
-	s.diag(model.Error, code, eq.Span, fmt.Sprintf("cannot solve %s from %s: %v", andList(names), andList(labels), err), rel...)
+	if be, ok := err.(*blockError); ok && be.prop != nil && len(blk) == 1 && eq.Kind == EqGiven {
+		code = CodeOutsideIF97
+		// A given T at a pressure that a unit fixed (not given beside it, which the state checks
+		// catch) can still land on the saturation line.
+		if errors.Is(be.prop, if97.ErrOnSaturation) && eq.Stream >= 0 && eq.Prop == model.T {
+			if pv := sys.StreamVar(eq.Stream, model.P); s.solved[pv] {
+				s.diag(model.Error, CodeStateAmbiguous, eq.Span, fmt.Sprintf("%s: T %s is the saturation temperature at its solved pressure %s; give the quality x (or h) instead of T",
+					s.m.Streams[eq.Stream].Name, s.f.q(model.T.Dim(), eq.Given.Value), s.f.q(model.P.Dim(), s.x[pv])))
+				return
+			}
+		}
+	}
+	hint := ""
+	if be, ok := err.(*blockError); ok && be.singular {
+		// Structurally square but numerically degenerate (a mixer inlet pressure that the lowest-
+		// pressure rule leaves free, two givens that say the same thing): one more given among
+		// the group's unknowns is what usually fixes it.
+		var cands []string
+		seen := map[string]bool{}
+		for _, v := range vars {
+			if n := s.candName(v); n != "" && !seen[n] {
+				seen[n] = true
+				cands = append(cands, n)
+			}
+		}
+		if len(cands) > 0 {
+			hint = "; the group may be under-specified: giving one of " + strings.Join(cands, ", ") + " may fix it"
+		}
+	}
+	s.diag(model.Error, code, eq.Span, fmt.Sprintf("cannot solve %s from %s: %v%s", andList(names), andList(labels), err, hint), rel...)
 }
 
 // streamResults evaluates each stream's state from its solved p and h.
@@ -318,7 +345,7 @@ func (s *solveRun) streamResults() {
 		if !s.solved[pv] || !s.solved[hv] {
 			continue
 		}
-		state, err := statePH(s.x[pv], s.x[hv])
+		state, err := streamState(s.x[pv], s.x[hv])
 		if err != nil {
 			s.diag(model.Error, CodeOutsideIF97, st.Span, fmt.Sprintf("%s: solved p %s and h %s are outside IAPWS-IF97: %s",
 				st.Name, s.f.q(model.P.Dim(), s.x[pv]), s.f.q(model.H.Dim(), s.x[hv]), propErr(err)))

@@ -32,7 +32,7 @@ func (b *builder) streamGivens(i int) {
 		if !finite(g.Value) {
 			b.diag(model.Error, CodeStructure, g.Span, fmt.Sprintf("%s flow is not a finite number", name))
 		} else {
-			b.givenEqs = append(b.givenEqs, b.linearGiven(i, model.Flow, g))
+			b.addEq(b.linearGiven(i, model.Flow, g))
 		}
 	}
 	var keep []model.Prop
@@ -111,15 +111,15 @@ func (b *builder) streamGivens(i int) {
 		g := s.Given[p]
 		switch p {
 		case model.P, model.H:
-			b.givenEqs = append(b.givenEqs, b.linearGiven(i, p, g))
+			b.addEq(b.linearGiven(i, p, g))
 		case model.T:
 			if has(model.X) && !has(model.P) {
-				b.givenEqs = append(b.givenEqs, b.satTempGiven(i, g))
+				b.addEq(b.satTempGiven(i, g))
 			} else {
-				b.givenEqs = append(b.givenEqs, b.propGiven(i, p, g))
+				b.addEq(b.propGiven(i, p, g))
 			}
 		default:
-			b.givenEqs = append(b.givenEqs, b.propGiven(i, p, g))
+			b.addEq(b.propGiven(i, p, g))
 		}
 	}
 }

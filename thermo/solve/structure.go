@@ -12,7 +12,7 @@ type structure struct {
 // 1955), givens before unit equations so that a redundant balance rather than a given is left
 // over, then orders the matched equations into blocks (Tarjan 1972, strongly connected
 // components of "equation e needs the unknown that equation f determines").
-func analyse(sys *System, nGiven int) *structure {
+func analyse(sys *System) *structure {
 	nv, ne := len(sys.Vars), len(sys.Eqs)
 	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), varEqs: make([][]int, nv)}
 	for i := range st.matchEq {
@@ -21,11 +21,26 @@ func analyse(sys *System, nGiven int) *structure {
 	for i := range st.matchVar {
 		st.matchVar[i] = -1
 	}
+	// varEqs as sub-slices of one array (counted, then filled): one allocation, not one per unknown.
+	count := make([]int, nv+1)
+	for e := range sys.Eqs {
+		for _, v := range sys.Eqs[e].Vars {
+			count[v+1]++
+		}
+	}
+	for v := 0; v < nv; v++ {
+		count[v+1] += count[v]
+	}
+	flat := make([]int, count[nv])
+	for v := 0; v < nv; v++ {
+		st.varEqs[v] = flat[count[v]:count[v]:count[v+1]]
+	}
 	for e := range sys.Eqs {
 		for _, v := range sys.Eqs[e].Vars {
 			st.varEqs[v] = append(st.varEqs[v], e)
 		}
 	}
+	skip := loopRedundant(sys)
 	seen := make([]int, nv)
 	stamp := 0
 	var try func(e int) bool
@@ -42,8 +57,11 @@ func analyse(sys *System, nGiven int) *structure {
 		}
 		return false
 	}
-	for _, g := range [][2]int{{0, nGiven}, {nGiven, ne}} {
-		for e := g[0]; e < g[1]; e++ { // cheap pass: a free unknown at hand
+	for _, givens := range []bool{true, false} {
+		for e := range sys.Eqs { // cheap pass: a free unknown at hand
+			if (sys.Eqs[e].Kind == EqGiven) != givens || skip[e] {
+				continue
+			}
 			for _, v := range sys.Eqs[e].Vars {
 				if st.matchVar[v] < 0 {
 					st.matchVar[v], st.matchEq[e] = e, v
@@ -51,8 +69,8 @@ func analyse(sys *System, nGiven int) *structure {
 				}
 			}
 		}
-		for e := g[0]; e < g[1]; e++ {
-			if st.matchEq[e] < 0 {
+		for e := range sys.Eqs {
+			if st.matchEq[e] < 0 && (sys.Eqs[e].Kind == EqGiven) == givens && !skip[e] {
 				stamp++
 				try(e)
 			}
@@ -75,6 +93,8 @@ func (st *structure) order(sys *System) [][]int {
 	}
 	var stack []int
 	var blocks [][]int
+	// Blocks are sub-slices of one array: each equation lands in exactly one block.
+	members := make([]int, 0, ne)
 	next := 0
 	type frame struct{ e, k int }
 	succ := func(e, k int) (int, bool) { // the k-th dependency of e
@@ -123,17 +143,17 @@ func (st *structure) order(sys *System) [][]int {
 				low[p] = min(low[p], low[e])
 			}
 			if low[e] == index[e] {
-				var blk []int
+				start := len(members)
 				for {
 					w := stack[len(stack)-1]
 					stack = stack[:len(stack)-1]
 					onStack[w] = false
-					blk = append(blk, w)
+					members = append(members, w)
 					if w == e {
 						break
 					}
 				}
-				blocks = append(blocks, blk)
+				blocks = append(blocks, members[start:len(members):len(members)])
 			}
 		}
 	}
@@ -179,4 +199,72 @@ func (st *structure) determining(sys *System, e int) []int {
 		}
 	}
 	return givens
+}
+
+// loopRedundant marks one mass balance of every closed loop. Mass balances are linear in the
+// flows: within a group of balances joined by shared streams, where every stream is both made
+// by one balance of the group and taken by another (a closed cycle, no feed or product), the
+// balances sum to zero whatever the flows, so one of them says nothing. The matching cannot see
+// this: it would count that balance on to fix a flow and leave a singular block. Left out of the
+// matching, the balance is checked after solving like any other redundant one.
+func loopRedundant(sys *System) []bool {
+	ne, nv := len(sys.Eqs), len(sys.Vars)
+	skip := make([]bool, ne)
+	parent := make([]int, ne) // union-find over mass balances, by equation index
+	for e := range parent {
+		parent[e] = e
+	}
+	find := func(e int) int {
+		for parent[e] != e {
+			parent[e] = parent[parent[e]]
+			e = parent[e]
+		}
+		return e
+	}
+	// For each flow unknown: how many mass balances it appears in, and the first two.
+	count := make([]int, nv)
+	first := make([]int, nv)
+	second := make([]int, nv)
+	for e := range sys.Eqs {
+		if sys.Eqs[e].Kind != EqMass {
+			continue
+		}
+		for _, v := range sys.Eqs[e].Vars {
+			switch count[v] {
+			case 0:
+				first[v] = e
+			case 1:
+				second[v] = e
+			}
+			count[v]++
+		}
+	}
+	for v := range count {
+		if count[v] == 2 {
+			if a, b := find(first[v]), find(second[v]); a != b {
+				parent[a] = b
+			}
+		}
+	}
+	open := make([]bool, ne) // by root: the group has a stream with one end outside it
+	for v := range count {
+		if count[v] != 0 && count[v] != 2 {
+			open[find(first[v])] = true
+		}
+	}
+	last := make([]int, ne) // by root: the last balance of the group, the one left out
+	for e := range last {
+		last[e] = -1
+	}
+	for e := range sys.Eqs {
+		if sys.Eqs[e].Kind == EqMass {
+			last[find(e)] = e
+		}
+	}
+	for root, e := range last {
+		if e >= 0 && !open[root] {
+			skip[e] = true
+		}
+	}
+	return skip
 }

@@ -33,6 +33,11 @@ func buildTurbine(b *builder, u int) {
 			return x[hi] - x[ho], x[eta.v] * (x[hi] - hs), err
 		},
 		direct: func(x []float64, v int) (float64, error) {
+			if v != ho && v != eta.v {
+				// A pressure or the inlet enthalpy: only Newton can invert the
+				// isentropic enthalpy. Checked first, since that unknown has no value yet.
+				return math.NaN(), errNoDirect
+			}
 			hs, err := isentropicH(x[pi], x[hi], x[po])
 			if err != nil {
 				return math.NaN(), err

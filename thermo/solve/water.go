@@ -22,6 +22,45 @@ func statePH(p, h float64) (if97.State, error) {
 	return if97.PH(p, h)
 }
 
+// satSnap is the relative enthalpy difference within which a state is taken as exactly saturated:
+// IF97's (p, h) inversion reproduces h to about 1e-9 relative, so a saturated outlet solved as
+// the saturated-liquid or saturated-vapour enthalpy can come back a hair outside the dome.
+const satSnap = 1e-8
+
+// streamState is a solved stream's state from (p, h), with a state on the saturation line
+// (within satSnap) reported as the saturated liquid or vapour itself, quality exactly 0 or 1.
+func streamState(p, h float64) (if97.State, error) {
+	st, err := statePH(p, h)
+	if err != nil || !(p < pCrit) {
+		return st, err
+	}
+	if math.IsNaN(st.X) {
+		// Single phase: near the line only if T is within a hair of Tsat(p) (the cheap test,
+		// before the saturated ends, which near the critical point need an iteration).
+		ts, err := if97.Tsat(p)
+		if err != nil || math.Abs(st.T-ts) > 1e-3 {
+			return st, nil
+		}
+	} else if st.X > satSnap && st.X < 1-satSnap {
+		return st, nil
+	}
+	hl, hv, err2 := satEnds(p)
+	if err2 != nil {
+		return st, nil
+	}
+	switch {
+	case math.Abs(h-hl) <= satSnap*math.Abs(hl):
+		if sat, err := if97.PX(p, 0); err == nil {
+			return sat, nil
+		}
+	case math.Abs(h-hv) <= satSnap*math.Abs(hv):
+		if sat, err := if97.PX(p, 1); err == nil {
+			return sat, nil
+		}
+	}
+	return st, nil
+}
+
 var errNotFinite = errors.New("not a finite number")
 
 // satEnds returns the saturated liquid and vapour enthalpies at p.

@@ -1,0 +1,424 @@
+package solve
+
+import (
+	"math"
+	"slices"
+	"strings"
+	"testing"
+
+	"hmb/thermo/model"
+)
+
+type streams = []*model.Stream
+
+// givenAt is the span of a stream's given; unitAt the span of a unit's name.
+func givenAt(name string, p model.Prop) func(*model.Model) model.Span {
+	return func(m *model.Model) model.Span {
+		for _, s := range m.Streams {
+			if s.Name == name && s.Given[p] != nil {
+				return s.Given[p].Span
+			}
+		}
+		return model.Span{Start: -1}
+	}
+}
+
+func unitAt(name string) func(*model.Model) model.Span {
+	return func(m *model.Model) model.Span {
+		for _, u := range m.Units {
+			if u.Name == name {
+				return u.Span
+			}
+		}
+		return model.Span{Start: -1}
+	}
+}
+
+func streamAt(name string) func(*model.Model) model.Span {
+	return func(m *model.Model) model.Span {
+		for _, s := range m.Streams {
+			if s.Name == name {
+				return s.Span
+			}
+		}
+		return model.Span{Start: -1}
+	}
+}
+
+func paramAt(unit, param string) func(*model.Model) model.Span {
+	return func(m *model.Model) model.Span {
+		for _, u := range m.Units {
+			if u.Name == unit && u.Params[param] != nil {
+				return u.Params[param].Span
+			}
+		}
+		return model.Span{Start: -1}
+	}
+}
+
+// TestDiagnostics checks each finding of the solver: its code, severity, place, the words that
+// tell the engineer what to do, and the related places. Physical facts behind each case:
+// Tsat(1 MPa) = 453.0356 K (python3-iapws: W(P=1,x=0).T); throttling to a higher pressure at
+// constant h lowers the entropy of steam (any h-s chart); a 6 MPa 350 C expansion to 10 kPa at
+// 80 % leaves the exhaust at about 15 % moisture (python3-iapws: x = 0.8450 from W(P=6,T=623.15),
+// W(P=0.01,s=s1), h2 = h1 - 0.8 (h1 - hs)).
+func TestDiagnostics(t *testing.T) {
+	cases := []struct {
+		name     string
+		m        func(t *testing.T) *model.Model
+		code     string
+		sev      model.Severity
+		at       func(*model.Model) model.Span
+		contains []string
+		related  []func(*model.Model) model.Span
+		absent   []string // codes that must not be reported
+	}{
+		{
+			name: "under-specified valve names the outlet pressure or the drop",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2")}, unit("V1", "valve", ports("in S1", "out S2")))
+			},
+			code: CodeUnderSpecified, sev: model.Error, at: unitAt("V1"),
+			contains: []string{"under-specified", "specify one of:", "V1 dp", "S2 p"},
+		},
+		{
+			name: "under-specified flow names every stream whose flow would fix it",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", pp, 2e6, tt, 573.15), strm("S2"), strm("S3", pp, 1e6, tt, 473.15)},
+					unit("V1", "valve", ports("in S1", "out S2")), unit("H", "heater", ports("in S2", "out S3")))
+			},
+			code: CodeUnderSpecified, sev: model.Error, at: streamAt("S1"),
+			contains: []string{"nothing fixes S1 flow", "specify one of: S1 flow, S2 flow, S3 flow"},
+		},
+		{
+			// Around a closed loop one mass balance is redundant; without it the split between
+			// bleed and condensate needs the deaerator pressure, which nothing states here.
+			name: "closed loop without the deaerator pressure is under-specified, not singular",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, regenStreams(false), regenUnits()...)
+			},
+			code: CodeUnderSpecified, sev: model.Error, at: unitAt("BFP"),
+			contains: []string{"under-specified", "FW1 p", "CN2 p"},
+			absent:   []string{CodeNoConvergence},
+		},
+		{
+			name: "over-specified flow names both givens",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", flow, 2.5, pp, 1e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+			},
+			code: CodeNotClosed, sev: model.Error, at: unitAt("V1"),
+			contains: []string{"mass balance of valve V1 does not close", "in 2.0000 kg/s", "out 2.5000 kg/s", "20.0 %", "given S1 flow", "given S2 flow"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", flow), givenAt("S2", flow)},
+		},
+		{
+			name: "over-specified outlet state: a given T against the valve's energy balance",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6, tt, 523.15)}, unit("V1", "valve", ports("in S1", "out S2")))
+			},
+			code: CodeNotClosed, sev: model.Error, at: unitAt("V1"),
+			contains: []string{"energy balance of valve V1 does not close", "given S1 T", "given S2 T"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", tt), givenAt("S2", tt)},
+		},
+		{
+			name: "three properties of a single-phase state",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 1, pp, 1e6, tt, 573.15, hh, 3e6)})
+			},
+			code: CodeStateOverSpecified, sev: model.Error, at: givenAt("S1", hh),
+			contains: []string{"S1 is over-specified", "p, T and h given"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", hh)},
+		},
+		{
+			name: "T, p and x inconsistent",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 1e6, tt, 400, xx, 0.5)})
+			},
+			code: CodeStateInconsistent, sev: model.Error, at: givenAt("S1", tt),
+			contains: []string{"inconsistent", "saturation temperature at 1000.0 kPa is 179.89 C"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", pp), givenAt("S1", xx)},
+		},
+		{
+			name: "(p, T) on the saturation line",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 1e6, tt, 453.0356)})
+			},
+			code: CodeStateAmbiguous, sev: model.Error, at: givenAt("S1", tt),
+			contains: []string{"is the saturation temperature at 1000.0 kPa", "give the quality x"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", pp)},
+		},
+		{
+			name: "T on the saturation line at a pressure a unit fixes",
+			m: func(t *testing.T) *model.Model {
+				// Tsat(0.48 MPa) = 423.454515 K (python3-iapws: W(P=0.48,x=0).T).
+				return mk(t, streams{strm("S1", pp, 0.5e6, tt, 293.15), strm("S2", tt, 423.454515)},
+					unit("H1", "heater", ports("in S1", "out S2"), "duty", 2e6, "dp", 20e3))
+			},
+			code: CodeStateAmbiguous, sev: model.Error, at: givenAt("S2", tt),
+			contains: []string{"S2: T 150.30 C is the saturation temperature at its solved pressure 480.00 kPa", "give the quality x"},
+		},
+		{
+			name: "negative entropy generation: throttling up in pressure",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 1e6, tt, 573.15), strm("S2", pp, 2e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+			},
+			code: CodeEntropy, sev: model.Error, at: unitAt("V1"),
+			contains: []string{"valve V1 is impossible", "destroys entropy"},
+		},
+		{
+			name: "given efficiency above 1",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 6e6, tt, 723.15), strm("S2", pp, 0.2e6)}, unit("T", "turbine", ports("in S1", "out S2"), "efficiency", 1.2))
+			},
+			code: CodeEfficiency, sev: model.Error, at: paramAt("T", "efficiency"),
+			contains: []string{"efficiency 1.200 is outside 0..1"},
+		},
+		{
+			name: "solved efficiency above 1: the exhaust is drier than an ideal turbine allows",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 6e6, tt, 723.15), strm("S2", pp, 0.2e6, xx, 0.8)}, unit("T", "turbine", ports("in S1", "out S2")))
+			},
+			code: CodeEfficiency, sev: model.Error, at: unitAt("T"),
+			contains: []string{"solved isentropic efficiency", "outside 0..1"},
+		},
+		{
+			// 10 (W(P=11.5,T=753.15).h - W(P=12,T=473.15).h) = 24.45 MW from 20 MW of fuel:
+			// efficiency 1.2227 (python3-iapws).
+			name: "solved boiler efficiency above 1",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 10, pp, 12e6, tt, 473.15), strm("S2", tt, 753.15)},
+					unit("B1", "boiler", ports("in S1", "out S2"), "dp", 0.5e6, "fuel", 20e6))
+			},
+			code: CodeEfficiency, sev: model.Error, at: unitAt("B1"),
+			contains: []string{"solved boiler efficiency 1.223 is outside 0..1"},
+		},
+		{
+			name: "exchanger temperature cross",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("H1", flow, 2, pp, 0.3e6, xx, 1), strm("H2", xx, 0), strm("C1", flow, 1, pp, 1e6, tt, 303.15), strm("C2")},
+					unit("X1", "exchanger", ports("hot_in H1", "hot_out H2", "cold_in C1", "cold_out C2")))
+			},
+			code: CodeTempCross, sev: model.Error, at: unitAt("X1"),
+			contains: []string{"temperature cross", "hot inlet H1 is 133.53 C", "colder than cold outlet C2"},
+		},
+		{
+			name: "pump inlet a wet mixture",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 0.1e6, xx, 0.5), strm("S2", pp, 1e6)}, unit("P", "pump", ports("in S1", "out S2"), "efficiency", 0.7))
+			},
+			code: CodePumpInlet, sev: model.Warning, at: unitAt("P"),
+			contains: []string{"inlet S1 is saturated mixture, not liquid"},
+		},
+		{
+			name: "turbine exhaust wetter than 10 %",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 6e6, tt, 623.15), strm("S2", pp, 10e3)}, unit("T", "turbine", ports("in S1", "out S2"), "efficiency", 0.8))
+			},
+			code: CodeWetExhaust, sev: model.Warning, at: unitAt("T"),
+			contains: []string{"exhaust S2 has quality 0.8450"},
+		},
+		{
+			// 330 K at 1 MPa lies below Tsat(0.2 MPa) = 393.36 K (python3-iapws: W(P=0.2,x=0).T).
+			name: "flash tank fed with subcooled liquid",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("F", flow, 1, pp, 1e6, tt, 330), strm("V", pp, 0.2e6), strm("L")},
+					unit("FT", "flash", ports("in F", "vapor V", "liquid L")))
+			},
+			code: CodeNegativeFlow, sev: model.Warning, at: streamAt("V"),
+			contains: []string{"V: solved flow", "is negative"},
+		},
+		{
+			name: "flash tank fed with subcooled liquid: the tank says why",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("F", flow, 1, pp, 1e6, tt, 330), strm("V", pp, 0.2e6), strm("L")},
+					unit("FT", "flash", ports("in F", "vapor V", "liquid L")))
+			},
+			code: CodeNegativeFlow, sev: model.Warning, at: unitAt("FT"),
+			contains: []string{"flash FT: the feed is subcooled at the tank pressure 200.00 kPa, so nothing flashes"},
+		},
+		{
+			name: "quality given above the critical pressure",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 1, pp, 25e6, xx, 0.5)})
+			},
+			code: CodeNoDome, sev: model.Error, at: givenAt("S1", xx),
+			contains: []string{"no two-phase region"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", pp)},
+		},
+		{
+			name: "temperature outside IF97",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 1, pp, 1e6, tt, 2500)})
+			},
+			code: CodeOutsideIF97, sev: model.Error, at: givenAt("S1", tt),
+			contains: []string{"outside IAPWS-IF97"},
+		},
+		{
+			name: "failed expectation states the solved and the expected value",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+				// Solved T2 = 553.622376 K (python3-iapws: W(P=0.5,h=W(P=2,T=573.15).h).T).
+				m.Expects = append(m.Expects, &model.Expect{Stream: 1, Unit: -1, Prop: "T", Op: model.Eq, Value: 560, Tol: 1, Span: model.Span{Start: 7000, End: 7010}})
+				return m
+			},
+			code: CodeExpectFailed, sev: model.Error, at: func(*model.Model) model.Span { return model.Span{Start: 7000, End: 7010} },
+			contains: []string{"S2 T is 280.47 C, expected 286.85 C ± 1.0000 dK"},
+		},
+		{
+			name: "expectation on an unsolved value",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2")}, unit("V1", "valve", ports("in S1", "out S2")))
+				m.Expects = append(m.Expects, &model.Expect{Stream: 1, Unit: -1, Prop: "T", Op: model.Gt, Value: 300, Span: model.Span{Start: 7000, End: 7010}})
+				return m
+			},
+			code: CodeExpectUnsolved, sev: model.Error, at: func(*model.Model) model.Span { return model.Span{Start: 7000, End: 7010} },
+			contains: []string{"cannot check S2 T: it was not solved"},
+		},
+		{
+			name: "redundant balance that closes is reported as a closure",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", flow, 2.001, pp, 1e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+			},
+			code: CodeClosure, sev: model.Info, at: unitAt("V1"),
+			contains: []string{"mass balance of valve V1 closes", "0.050 %"},
+		},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			m := c.m(t)
+			r := solveModel(t, m)
+			// The diagnostic of that code at the expected place, else the first of that code.
+			d := findDiag(r, c.code)
+			for i := range r.Diags {
+				if r.Diags[i].Code == c.code && r.Diags[i].Span == c.at(m) {
+					d = &r.Diags[i]
+					break
+				}
+			}
+			if d == nil {
+				logDiags(t, r)
+				t.Fatalf("no %s", c.code)
+			}
+			if d.Severity != c.sev {
+				t.Errorf("severity %v, want %v", d.Severity, c.sev)
+			}
+			if want := c.at(m); d.Span != want {
+				t.Errorf("span %v, want %v", d.Span, want)
+			}
+			for _, s := range c.contains {
+				if !strings.Contains(d.Message, s) {
+					t.Errorf("message %q lacks %q", d.Message, s)
+				}
+			}
+			for _, code := range c.absent {
+				if findDiag(r, code) != nil {
+					t.Errorf("%s reported: %s", code, findDiag(r, code).Message)
+				}
+			}
+			var got []model.Span
+			for _, rl := range d.Related {
+				got = append(got, rl.Span)
+			}
+			for _, f := range c.related {
+				if w := f(m); !slices.Contains(got, w) {
+					t.Errorf("related %v lacks %v", got, w)
+				}
+			}
+			for _, dd := range r.Diags {
+				if strings.Contains(dd.Message, "NaN") || strings.Contains(dd.Message, "Inf") {
+					t.Errorf("message shows a non-number: %q", dd.Message)
+				}
+			}
+		})
+	}
+}
+
+// TestExpectationHolds: an expectation that the solved values meet reports nothing, and each
+// operator compares the way it reads. Solved T2 = 553.622376 K (python3-iapws, as above).
+func TestExpectationHolds(t *testing.T) {
+	for _, c := range []struct {
+		op   model.Op
+		v    float64
+		tol  float64
+		pass bool
+	}{
+		{model.Eq, 553.6, 0.1, true},
+		{model.Eq, 553.6, 0.01, false},
+		{model.Lt, 554, 0, true},
+		{model.Lt, 553.6, 0, false},
+		{model.Le, 553.7, 0, true},
+		{model.Gt, 553.6, 0, true},
+		{model.Gt, 554, 0, false},
+		{model.Ge, 553.7, 0, false},
+	} {
+		m := mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+		m.Expects = append(m.Expects, &model.Expect{Stream: 1, Unit: -1, Prop: "T", Op: c.op, Value: c.v, Tol: c.tol})
+		r := solveModel(t, m)
+		if got := findDiag(r, CodeExpectFailed) == nil; got != c.pass {
+			logDiags(t, r)
+			t.Errorf("T %s %g (tol %g): pass %v, want %v", c.op, c.v, c.tol, got, c.pass)
+		}
+	}
+}
+
+// TestProvenance: each solved value names the given or the equation that produced it.
+func TestProvenance(t *testing.T) {
+	m := mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+	r := solveModel(t, m)
+	for _, c := range []struct {
+		stream int
+		prop   model.Prop
+		kind   ProvKind
+		label  string
+	}{
+		{0, model.Flow, ProvGiven, "given S1 flow"},
+		{0, model.T, ProvGiven, "given S1 T"},
+		{0, model.H, ProvEquation, "given S1 T"}, // h from the given T at the given p
+		{1, model.Flow, ProvEquation, "mass balance of valve V1"},
+		{1, model.H, ProvEquation, "energy balance of valve V1"},
+		{1, model.P, ProvGiven, "given S2 p"},
+		{1, model.T, ProvDerived, "IAPWS-IF97 from p (given S2 p) and h (energy balance of valve V1)"},
+	} {
+		got := r.Streams[c.stream].Source[c.prop]
+		if got.Kind != c.kind || got.Label != c.label {
+			t.Errorf("%s %s: %v %q, want %v %q", m.Streams[c.stream].Name, c.prop, got.Kind, got.Label, c.kind, c.label)
+		}
+	}
+	if u := r.Streams[1].Source[model.H].Unit; u != 0 {
+		t.Errorf("S2 h comes from unit %d, want 0", u)
+	}
+}
+
+// TestSystemAtSolution: the explicit system a later reconciliation stage will use holds at the
+// solution: every equation's residual vanishes (relative to its scale) and the Jacobian is finite
+// and has an entry for every unknown each equation touches.
+func TestSystemAtSolution(t *testing.T) {
+	m := networkModel(t, 51)
+	r := solveModel(t, m)
+	if errs := errorsOf(r); len(errs) > 0 {
+		logDiags(t, r)
+		t.Fatal("errors")
+	}
+	sys := r.System
+	res := make([]float64, len(sys.Eqs))
+	sys.Residuals(r.X, res)
+	for e := range sys.Eqs {
+		_, scale, err := sys.Residual(e, r.X)
+		if err != nil || !(math.Abs(res[e]) <= 1e-8*scale) {
+			t.Errorf("%s: residual %g (scale %g, %v)", sys.Eqs[e].Label, res[e], scale, err)
+		}
+	}
+	n := 0
+	for _, en := range sys.Jacobian(r.X) {
+		n++
+		if !finite(en.Val) {
+			t.Errorf("Jacobian (%s, %s) = %v", sys.Eqs[en.Row].Label, sys.Vars[en.Col].Name, en.Val)
+		}
+	}
+	want := 0
+	for _, eq := range sys.Eqs {
+		want += len(eq.Vars)
+	}
+	if n != want {
+		t.Errorf("%d Jacobian entries, want %d", n, want)
+	}
+}
