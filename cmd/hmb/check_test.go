@@ -50,6 +50,11 @@ func TestCheckGolden(t *testing.T) {
 		{"clean-si", []string{"check", "--si", "testdata/cli/clean.hmb"}, 0, "check-si.txt"},
 		{"json", []string{"check", "--format", "json", "testdata/cli"}, 1, "check.json"},
 		{"sarif", []string{"check", "--format", "sarif", "testdata/cli"}, 1, "check.sarif"},
+		// The bundled examples are clean (warnings only): exit 0 in every format.
+		{"examples-text", []string{"check", "testdata/examples"}, 0, "examples.txt"},
+		{"examples-json", []string{"check", "--format", "json", "testdata/examples"}, 0, "examples.json"},
+		{"examples-sarif", []string{"check", "--format", "sarif", "testdata/examples"}, 0, "examples.sarif"},
+		{"examples-us", []string{"check", "--us", "testdata/examples"}, 0, "examples-us.txt"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

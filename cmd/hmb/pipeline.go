@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"hmb/lang"
@@ -116,7 +117,7 @@ func streamTable(m *model.Model, r *solve.Result) string {
 			vals[1], vals[2], vals[3], vals[4] = st.P, st.T, st.H, st.S
 			phase = st.Phase.String()
 			if !math.IsNaN(st.X) {
-				x = units.Format(st.X, 4)
+				x = strconv.FormatFloat(st.X, 'f', 4, 64)
 			}
 		}
 		for j, d := range dims {
