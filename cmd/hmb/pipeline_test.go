@@ -91,7 +91,7 @@ func BenchmarkPipeline(b *testing.B) {
 // FuzzCheck runs the whole pipeline (parse, check, solve, every output format) on arbitrary
 // text: it must never panic, and never print NaN or Inf as a number.
 func FuzzCheck(f *testing.F) {
-	for _, dir := range []string{"examples", "broken", "cli", "lang"} {
+	for _, dir := range []string{"examples", "broken", "broken/solve", "cli", "lang"} {
 		files, _ := filepath.Glob(filepath.Join("..", "..", "testdata", dir, "*.hmb"))
 		for _, p := range files {
 			if src, err := os.ReadFile(p); err == nil {
