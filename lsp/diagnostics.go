@@ -11,12 +11,26 @@ import (
 )
 
 // analyze publishes a new snapshot's diagnostics, off the request path. The check (parse, names,
-// wiring, units) runs at once and, when it finds errors, is published at once; the solve waits
-// for the debounce, so that typing a word solves once, and the full set (check and solve) is
-// published after it. A newer version cancels all of this: the wait ends, the solve's context is
-// cancelled, and anything still queued for the old version is dropped by the notifier.
+// wiring, units) runs at once and, when it finds errors, is published at once; then the solve
+// runs and the full set (check and solve) is published. A version that overtakes an analysis
+// still running (the user is typing faster than the file solves) first waits for the debounce,
+// so that a burst of keystrokes solves once, at its end; a version arriving when the server is
+// idle is solved at once, so that a single edit shows its result without delay. A newer version
+// cancels all of this: the wait ends, the solve's context is cancelled, and anything still
+// queued for the old version is dropped by the notifier.
 func (s *Server) analyze(snap *cache.Snapshot) {
+	s.mu.Lock()
+	burst := s.busy[snap.URI] != nil
+	s.busy[snap.URI] = snap
+	s.mu.Unlock()
 	go func() {
+		defer func() {
+			s.mu.Lock()
+			if s.busy[snap.URI] == snap {
+				delete(s.busy, snap.URI)
+			}
+			s.mu.Unlock()
+		}()
 		if snap.Superseded() {
 			return
 		}
@@ -25,12 +39,12 @@ func (s *Server) analyze(snap *cache.Snapshot) {
 			return
 		}
 		if syn.Model == nil || hasErrors(syn.Diagnostics) {
-			s.publish(snap, snap.Diagnostics(nil))
+			s.publish(snap, snap.Diagnostics(nil), syn.Model == nil)
 			if syn.Model == nil {
 				return
 			}
 		}
-		if s.opts.debounce > 0 {
+		if burst && s.opts.debounce > 0 {
 			t := time.NewTimer(s.opts.debounce)
 			select {
 			case <-t.C:
@@ -43,7 +57,7 @@ func (s *Server) analyze(snap *cache.Snapshot) {
 		if err != nil {
 			return
 		}
-		s.publish(snap, snap.Diagnostics(sol))
+		s.publish(snap, snap.Diagnostics(sol), true)
 	}()
 }
 
@@ -60,7 +74,11 @@ func (c noCancel) Err() error {
 }
 func (c noCancel) Value(any) any { return nil }
 
-func (s *Server) publish(snap *cache.Snapshot, diags []model.Diagnostic) {
+// publish queues the diagnostics of snap; final marks the complete set (tests wait for it).
+func (s *Server) publish(snap *cache.Snapshot, diags []model.Diagnostic, final bool) {
+	if s.opts.onPublish != nil {
+		s.opts.onPublish(snap.URI, snap.Version, final)
+	}
 	s.notifier.enqueue(note{
 		method: protocol.MethodTextDocumentPublishDiagnostics,
 		params: &protocol.PublishDiagnosticsParams{

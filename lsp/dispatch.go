@@ -3,6 +3,7 @@ package lsp
 import (
 	"context"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"runtime/debug"
 	"strings"
@@ -79,7 +80,7 @@ func (s *Server) handle(ctx context.Context, reply jsonrpc2.Replier, req jsonrpc
 		if r := recover(); r != nil {
 			s.logf(protocol.MessageTypeError, "panic handling %s: %v\n%s", req.Method(), r, debug.Stack())
 			if _, ok := req.(*jsonrpc2.Call); ok {
-				go reply(context.Background(), nil, jsonrpc2.Errorf(jsonrpc2.InternalError, "internal error: %v", r))
+				s.replyLater(reply, req.Method(), nil, jsonrpc2.Errorf(jsonrpc2.InternalError, "internal error: %v", r))
 			}
 		}
 	}()
@@ -110,7 +111,7 @@ func (s *Server) dispatchCall(ctx context.Context, reply jsonrpc2.Replier, req *
 		err = jsonrpc2.Errorf(jsonrpc2.MethodNotFound, "method not found: %s", req.Method())
 	}
 	if err != nil {
-		go reply(ctx, nil, err)
+		s.replyLater(reply, req.Method(), nil, err)
 		return
 	}
 	switch req.Method() {
@@ -131,7 +132,9 @@ func (s *Server) dispatchCall(ctx context.Context, reply jsonrpc2.Replier, req *
 	s.mu.Lock()
 	s.inflight[req.ID()] = cancel
 	s.mu.Unlock()
+	s.startReply()
 	go func() {
+		defer s.endReply()
 		var result any
 		var err error
 		defer func() {
@@ -154,11 +157,32 @@ func (s *Server) dispatchCall(ctx context.Context, reply jsonrpc2.Replier, req *
 		if err != nil && ctx.Err() != nil {
 			err = nil // replaced by the cancellation error above
 		}
+		var rpcErr *jsonrpc2.Error
+		if err != nil && !errors.As(err, &rpcErr) {
+			// A feature's own refusal (a file that does not parse, a name already taken): the
+			// request was well formed, so the protocol's RequestFailed, not jsonrpc2's code 0.
+			err = jsonrpc2.NewError(requestFailed, err.Error())
+		}
 	}()
 }
 
-// requestCancelled is the protocol's RequestCancelled error code.
-const requestCancelled jsonrpc2.Code = -32800
+// replyLater replies off the reading goroutine: a write can block on a client that is itself
+// blocked writing to us. run waits for these replies before it returns.
+func (s *Server) replyLater(reply jsonrpc2.Replier, method string, result any, err error) {
+	s.startReply()
+	go func() {
+		defer s.endReply()
+		if rerr := reply(context.Background(), result, err); rerr != nil {
+			fmt.Fprintf(s.log, "hmb lsp: replying to %s: %v\n", method, rerr)
+		}
+	}()
+}
+
+// The protocol's own error codes (LSP 3.17, ErrorCodes / LSPErrorCodes).
+const (
+	requestCancelled jsonrpc2.Code = -32800
+	requestFailed    jsonrpc2.Code = -32803
+)
 
 // documentURI reads params.textDocument.uri, or "".
 func documentURI(raw json.RawMessage) protocol.DocumentURI {

@@ -45,7 +45,8 @@ func solveDouble(ctx context.Context, m *model.Model) *cache.Solution {
 	}
 	for _, u := range m.Units {
 		b := cache.UnitBalance{MassIn: math.NaN(), MassOut: math.NaN(), EnergyIn: math.NaN(),
-			EnergyOut: math.NaN(), Duty: math.NaN(), Power: math.NaN(), Sgen: math.NaN()}
+			EnergyOut: math.NaN(), Duty: math.NaN(), Power: math.NaN(), Sgen: math.NaN(),
+			Efficiency: math.NaN(), MassClosure: math.NaN(), EnergyClosure: math.NaN()}
 		if g := u.Params["power"]; g != nil {
 			b.Power = g.Value
 		}
@@ -65,6 +66,48 @@ type client struct {
 	mu     sync.Mutex
 	diags  []*protocol.PublishDiagnosticsParams
 	notify chan struct{}
+	sent   map[string][]jsonrpc2.ID // the ids of the calls written, by method
+	queued map[pubKey]int           // publications the server queued, by document version
+	final  map[pubKey]int           // the number of the complete one among them
+}
+
+type pubKey struct {
+	uri     protocol.DocumentURI
+	version int32
+}
+
+// tapStream records the id of every call the client writes, so that a test can cancel a call
+// it sent from another goroutine.
+type tapStream struct {
+	jsonrpc2.Stream
+	c *client
+}
+
+func (s tapStream) Write(ctx context.Context, msg jsonrpc2.Message) (int64, error) {
+	n, err := s.Stream.Write(ctx, msg)
+	if call, ok := msg.(*jsonrpc2.Call); ok && err == nil {
+		s.c.mu.Lock()
+		s.c.sent[call.Method()] = append(s.c.sent[call.Method()], call.ID())
+		s.c.mu.Unlock()
+	}
+	return n, err
+}
+
+// sentID waits until the client has written a call of method and returns the id of the first.
+func (c *client) sentID(method string) jsonrpc2.ID {
+	c.t.Helper()
+	deadline := time.Now().Add(10 * time.Second)
+	for time.Now().Before(deadline) {
+		c.mu.Lock()
+		ids := c.sent[method]
+		c.mu.Unlock()
+		if len(ids) > 0 {
+			return ids[0]
+		}
+		time.Sleep(time.Millisecond)
+	}
+	c.t.Fatalf("no %s call was sent", method)
+	return jsonrpc2.ID{}
 }
 
 type syncBuffer struct {
@@ -105,9 +148,19 @@ func startRaw(t testing.TB, opts options) *client {
 	t.Helper()
 	sc, cc := net.Pipe()
 	ctx, cancel := context.WithCancel(context.Background())
-	c := &client{t: t, ctx: ctx, done: make(chan error, 1), log: &syncBuffer{}, notify: make(chan struct{}, 1)}
+	c := &client{t: t, ctx: ctx, done: make(chan error, 1), log: &syncBuffer{}, notify: make(chan struct{}, 1),
+		sent: map[string][]jsonrpc2.ID{}, queued: map[pubKey]int{}, final: map[pubKey]int{}}
+	opts.onPublish = func(uri protocol.DocumentURI, version int32, final bool) {
+		c.mu.Lock()
+		defer c.mu.Unlock()
+		k := pubKey{uri, version}
+		c.queued[k]++
+		if final {
+			c.final[k] = c.queued[k]
+		}
+	}
 	go func() { c.done <- run(ctx, sc, sc, c.log, opts) }()
-	c.conn = jsonrpc2.NewConn(jsonrpc2.NewStream(cc))
+	c.conn = jsonrpc2.NewConn(tapStream{jsonrpc2.NewStream(cc), c})
 	c.conn.Go(ctx, func(ctx context.Context, reply jsonrpc2.Replier, req jsonrpc2.Request) error {
 		if req.Method() == protocol.MethodTextDocumentPublishDiagnostics {
 			var p protocol.PublishDiagnosticsParams
@@ -165,34 +218,57 @@ func (c *client) change(uri protocol.DocumentURI, version int32, changes ...map[
 	})
 }
 
-// waitDiags waits for the last publication for uri at version to be the complete one: it
-// returns the latest publication for that version once no further one has come for a while.
+// waitDiags waits for the complete set of diagnostics for uri at version (the server may first
+// publish the check's errors alone) and returns it.
 func (c *client) waitDiags(uri protocol.DocumentURI, version int32) []protocol.Diagnostic {
 	c.t.Helper()
-	deadline := time.Now().Add(10 * time.Second)
-	var got *protocol.PublishDiagnosticsParams
-	quiet := 0
-	for time.Now().Before(deadline) {
+	timeout := time.After(10 * time.Second)
+	key := pubKey{uri, version}
+	for {
 		c.mu.Lock()
-		var latest *protocol.PublishDiagnosticsParams
+		var got []*protocol.PublishDiagnosticsParams
 		for _, p := range c.diags {
 			if p.URI == uri && int32(p.Version) == version {
-				latest = p
+				got = append(got, p)
+			}
+		}
+		n := c.final[key]
+		c.mu.Unlock()
+		// The notifier sends in order: once as many have come as were queued up to the final
+		// one, the last is the final one.
+		if n > 0 && len(got) >= n {
+			return got[n-1].Diagnostics
+		}
+		select {
+		case <-c.notify:
+		case <-time.After(5 * time.Millisecond):
+		case <-timeout:
+			c.t.Fatalf("no diagnostics for %s version %d; got %d publications", uri, version, len(c.published()))
+			return nil
+		}
+	}
+}
+
+// waitPublished waits for the first publication for uri at version.
+func (c *client) waitPublished(uri protocol.DocumentURI, version int32) []protocol.Diagnostic {
+	c.t.Helper()
+	timeout := time.After(10 * time.Second)
+	for {
+		c.mu.Lock()
+		for _, p := range c.diags {
+			if p.URI == uri && int32(p.Version) == version {
+				c.mu.Unlock()
+				return p.Diagnostics
 			}
 		}
 		c.mu.Unlock()
-		if latest != nil && latest == got {
-			quiet++
-			if quiet >= 10 {
-				return got.Diagnostics
-			}
-		} else {
-			got, quiet = latest, 0
+		select {
+		case <-c.notify:
+		case <-timeout:
+			c.t.Fatalf("no diagnostics for %s version %d", uri, version)
+			return nil
 		}
-		time.Sleep(10 * time.Millisecond)
 	}
-	c.t.Fatalf("no diagnostics for %s version %d; got %d publications", uri, version, len(c.published()))
-	return nil
 }
 
 func (c *client) published() []*protocol.PublishDiagnosticsParams {

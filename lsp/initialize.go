@@ -48,7 +48,8 @@ func (s *Server) initialize(ctx context.Context, _ *cache.Snapshot, raw json.Raw
 	}, nil
 }
 
+// shutdown only changes the state (dispatchCall refuses later requests): requests sent before it
+// still get their answers, and the documents go when the client exits.
 func (s *Server) shutdown(ctx context.Context, _ *cache.Snapshot, _ json.RawMessage) (any, error) {
-	s.session.Shutdown()
 	return nil, nil
 }

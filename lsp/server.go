@@ -19,14 +19,17 @@ import (
 	"hmb/lsp/cache"
 )
 
-// defaultDebounce is how long the solver waits after an edit for the next one: long enough that
-// typing a word solves once, short enough not to be noticed.
+// defaultDebounce is how long the solver waits, during a burst of edits, for the next one: long
+// enough that typing a word solves once, short enough not to be noticed.
 const defaultDebounce = 30 * time.Millisecond
 
 // options configure a server; tests set them.
 type options struct {
 	analyzer cache.Analyzer
 	debounce time.Duration
+	// onPublish, when set, learns of each publication of diagnostics as it is queued, and
+	// whether it is the complete set for its version (the check's errors go out before the solve).
+	onPublish func(uri protocol.DocumentURI, version int32, final bool)
 }
 
 // Run serves one client on in and out until the client exits or in ends. Only protocol goes to
@@ -55,6 +58,13 @@ func run(ctx context.Context, in io.Reader, out io.Writer, log io.Writer, opts o
 	case <-conn.Done():
 	case <-s.exited:
 	case <-ctx.Done():
+	}
+	// Answer what is still running (a client may send exit right behind its last requests);
+	// what has not ended after a while is cancelled, solves included, and answered so.
+	if !s.drainReplies(drainTimeout) {
+		s.session.Shutdown()
+		s.cancelAll()
+		s.drainReplies(drainTimeout)
 	}
 	s.session.Shutdown()
 	s.notifier.close()
@@ -88,6 +98,13 @@ type Server struct {
 	mu       sync.Mutex
 	state    state
 	inflight map[jsonrpc2.ID]context.CancelFunc
+	busy     map[protocol.DocumentURI]*cache.Snapshot // the snapshot each document is being analysed at
+	// replies counts requests not yet answered, so that run does not return (and the process
+	// exit) with answers unwritten; drained is closed when it falls to zero after closing.
+	replies    int
+	closing    bool
+	wasDrained bool
+	drained    chan struct{}
 
 	exitOnce sync.Once
 	exited   chan struct{}
@@ -106,7 +123,61 @@ func newServer(conn jsonrpc2.Conn, log io.Writer, opts options) *Server {
 		session:  cache.NewSession(opts.analyzer, log),
 		notifier: newNotifier(conn, log),
 		inflight: make(map[jsonrpc2.ID]context.CancelFunc),
+		busy:     make(map[protocol.DocumentURI]*cache.Snapshot),
+		drained:  make(chan struct{}),
 		exited:   make(chan struct{}),
+	}
+}
+
+// drainTimeout bounds each of run's two waits, at the end, for requests still being answered.
+const drainTimeout = time.Second
+
+// cancelAll cancels every request in flight.
+func (s *Server) cancelAll() {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	for _, cancel := range s.inflight {
+		cancel()
+	}
+}
+
+// startReply counts a request that will be answered; endReply, its answer.
+func (s *Server) startReply() {
+	s.mu.Lock()
+	s.replies++
+	s.mu.Unlock()
+}
+
+func (s *Server) endReply() {
+	s.mu.Lock()
+	s.replies--
+	s.signalDrained()
+	s.mu.Unlock()
+}
+
+// signalDrained closes drained, once, when closing and nothing is left to answer. s.mu is held.
+func (s *Server) signalDrained() {
+	if s.closing && s.replies == 0 && !s.wasDrained {
+		s.wasDrained = true
+		close(s.drained)
+	}
+}
+
+// drainReplies waits until every request has been answered, or d has passed; it reports
+// whether all were.
+func (s *Server) drainReplies(d time.Duration) bool {
+	s.mu.Lock()
+	s.closing = true
+	s.signalDrained()
+	s.mu.Unlock()
+	t := time.NewTimer(d)
+	defer t.Stop()
+	select {
+	case <-s.drained:
+		return true
+	case <-t.C:
+		fmt.Fprintln(s.log, "hmb lsp: requests still running at exit")
+		return false
 	}
 }
 
@@ -133,4 +204,4 @@ func (s *Server) logf(typ protocol.MessageType, format string, a ...any) {
 }
 
 // defaultAnalyzer is the notation and the solver the command line uses.
-func defaultAnalyzer() cache.Analyzer { return analysis.New(nil) }
+func defaultAnalyzer() cache.Analyzer { return analysis.New(analysis.Solver) }

@@ -50,7 +50,9 @@ func (s *stream) Read(ctx context.Context) (jsonrpc2.Message, int64, error) {
 		msg, err := jsonrpc2.DecodeMessage(data)
 		if err != nil {
 			fmt.Fprintf(s.log, "hmb lsp: bad message: %v\n", err)
-			s.writeRaw(parseErrorResponse(err))
+			if resp := errorResponse(data, err); resp != nil {
+				s.writeRaw(resp)
+			}
 			continue
 		}
 		return msg, n, nil
@@ -93,12 +95,15 @@ func (s *stream) readFrame() ([]byte, int64, error) {
 		if length == 0 {
 			fmt.Fprintf(s.log, "hmb lsp: message without Content-Length\n")
 		}
-		s.writeRaw(parseErrorResponse(fmt.Errorf("missing or bad Content-Length")))
+		s.writeRaw(errorResponse(nil, fmt.Errorf("missing or bad Content-Length")))
 		return nil, total, nil
 	}
-	data := make([]byte, length)
-	n, err := io.ReadFull(s.in, data)
-	total += int64(n)
+	// Read what arrives rather than allocating the announced length: a header may lie.
+	data, err := io.ReadAll(io.LimitReader(s.in, length))
+	total += int64(len(data))
+	if err == nil && int64(len(data)) < length {
+		err = io.ErrUnexpectedEOF
+	}
 	if err != nil {
 		return nil, total, err
 	}
@@ -131,12 +136,39 @@ func (s *stream) Close() error {
 	return nil
 }
 
-func parseErrorResponse(err error) []byte {
-	b, _ := json.Marshal(map[string]any{
-		"jsonrpc": "2.0",
-		"id":      nil,
-		"error":   map[string]any{"code": jsonrpc2.ParseError, "message": "parse error: " + err.Error()},
-	})
+// errorResponse answers a body jsonrpc2 could not decode, as JSON-RPC 2.0 asks: a parse error
+// when it is not JSON, an invalid request when it is JSON but not a message jsonrpc2 represents
+// (an id such as 1.5, true or 2^40; a wrong version tag; a batch). The id is echoed when it is a
+// number or a string, so that the client can fail the call it made; otherwise it is null. A
+// response the client sent that cannot be read gets no answer (nil).
+func errorResponse(data []byte, err error) []byte {
+	code, msg := jsonrpc2.ParseError, "parse error: "+err.Error()
+	id := json.RawMessage("null")
+	if data != nil && json.Valid(data) {
+		code, msg = jsonrpc2.InvalidRequest, "invalid request: "+err.Error()
+		var m struct {
+			ID     json.RawMessage `json:"id"`
+			Method json.RawMessage `json:"method"`
+		}
+		ok := json.Unmarshal(data, &m) == nil
+		if ok && len(m.ID) > 0 && len(m.Method) == 0 {
+			return nil // a response to us we cannot read: answering it would start a loop
+		}
+		if ok && len(m.ID) > 0 {
+			var v any
+			if json.Unmarshal(m.ID, &v) == nil {
+				switch v.(type) {
+				case float64, string:
+					id = m.ID
+				}
+			}
+		}
+	}
+	b, _ := json.Marshal(struct {
+		Version string          `json:"jsonrpc"`
+		ID      json.RawMessage `json:"id"`
+		Error   jsonrpc2.Error  `json:"error"`
+	}{"2.0", id, jsonrpc2.Error{Code: code, Message: msg}})
 	return b
 }
 

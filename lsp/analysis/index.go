@@ -99,6 +99,11 @@ func index(syn *cache.Syntax, res *lang.Result) {
 			word(s.Keyword, "stream", cache.KeywordToken)
 			tok(s.Name, cache.StreamToken, true)
 			declSpan[s.Name] = spanOf(s)
+			if len(s.More) > 0 {
+				// A list declares each stream by its name alone: hints then sit beside each
+				// name, not all at the end of the list.
+				declSpan[s.Name] = spanOf(s.Name)
+			}
 			for _, n := range s.More {
 				tok(n, cache.StreamToken, true)
 				declSpan[n] = spanOf(n)

@@ -1,11 +1,14 @@
 package analysis
 
 import (
+	"fmt"
 	"strings"
 
+	"hmb/lang/ast"
 	"hmb/lang/check"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
+	"hmb/thermo/solve"
 )
 
 // QuickFixes implements cache.Analyzer. The replacement a diagnostic suggests (Diagnostic.Fix)
@@ -40,6 +43,92 @@ func (a *Analyzer) QuickFixes(syn *cache.Syntax, sol *cache.Solution, d model.Di
 			Title: "Declare stream " + name,
 			Edits: []cache.Edit{{Span: model.Span{Start: start, End: start}, NewText: "stream " + name + "\n"}},
 		}}
+	case solve.CodeUnderSpecified:
+		var fixes []cache.QuickFix
+		for _, c := range specifyCandidates(d.Message) {
+			name, what, _ := strings.Cut(c, " ")
+			what, _, _ = strings.Cut(what, " or ") // "T or h": T is what a file usually states
+			if e, ok := addEntry(f, name, what); ok {
+				fixes = append(fixes, cache.QuickFix{Title: fmt.Sprintf("Specify %s %s", name, what), Edits: []cache.Edit{e}})
+			}
+		}
+		return fixes
 	}
 	return nil
+}
+
+// maxSpecifyFixes bounds the fixes offered for one under-specified system: the first few
+// candidates are the ones nearest the missing value.
+const maxSpecifyFixes = 6
+
+// specifyCandidates reads the solver's list of values that would fix an under-specified system
+// from its message ("...; specify one of: V1 dp, A T or h (and 3 more)").
+func specifyCandidates(msg string) []string {
+	i := strings.LastIndex(msg, " of: ")
+	if i < 0 {
+		return nil
+	}
+	list, _, _ := strings.Cut(msg[i+len(" of: "):], " (and ")
+	var out []string
+	for _, c := range strings.Split(list, ", ") {
+		if strings.Count(c, " ") >= 1 && len(out) < maxSpecifyFixes {
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// addEntry returns the edit that adds an entry "what " to the block of the stream or unit
+// named name, for the user to type its value: on a line of its own before a closing brace on its
+// own line, after a semicolon in a one-line block, or in a new block after a bare declaration. A
+// stream declared in a list, or a block left open, gets none.
+func addEntry(f *ast.File, name, what string) (cache.Edit, bool) {
+	src := f.Src.Src
+	for _, st := range f.Stmts {
+		var id *ast.Ident
+		var b *ast.Block
+		switch st := st.(type) {
+		case *ast.StreamDecl:
+			if len(st.More) > 0 {
+				continue
+			}
+			id, b = st.Name, st.Block
+		case *ast.UnitDecl:
+			id, b = st.Name, st.Block
+		}
+		if id == nil || id.Name != name {
+			continue
+		}
+		if b == nil {
+			end := st.End()
+			return cache.Edit{Span: model.Span{Start: end, End: end}, NewText: " { " + what + " }"}, true
+		}
+		if b.Rbrace < 0 || b.Rbrace > len(src) {
+			return cache.Edit{}, false
+		}
+		// Back over the blanks before the brace.
+		q := b.Rbrace
+		for q > b.Lbrace+1 && (src[q-1] == ' ' || src[q-1] == '\t') {
+			q--
+		}
+		switch {
+		case src[q-1] == '\n':
+			// The brace is on its own line: a new line before it, indented like the entry above.
+			indent := "  "
+			if n := len(b.Entries); n > 0 {
+				ls := f.Src.LineStart(f.Src.Position(b.Entries[n-1].Pos()).Line)
+				if in := string(src[ls:b.Entries[n-1].Pos()]); strings.Trim(in, " \t") == "" {
+					indent = in
+				}
+			}
+			return cache.Edit{Span: model.Span{Start: q, End: q}, NewText: indent + what + " \n"}, true
+		case len(b.Entries) == 0:
+			return cache.Edit{Span: model.Span{Start: b.Lbrace + 1, End: b.Rbrace}, NewText: " " + what + " "}, true
+		case src[q-1] == ';':
+			return cache.Edit{Span: model.Span{Start: q, End: b.Rbrace}, NewText: " " + what + " "}, true
+		default:
+			return cache.Edit{Span: model.Span{Start: q, End: b.Rbrace}, NewText: "; " + what + " "}, true
+		}
+	}
+	return cache.Edit{}, false
 }

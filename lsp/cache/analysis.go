@@ -183,9 +183,12 @@ type Solution struct {
 // StreamState is the solved state of one stream. A quantity the solver did not find is NaN.
 type StreamState struct {
 	Values [NumQuantities]float64 // SI base units
-	Source [NumQuantities]string  // where each value came from: "given", "energy balance of hp-turbine"...
+	Source [NumQuantities]string  // where each value came from: Given, "energy balance of turbine T1"...
 	Phase  string                 // "liquid", "wet steam", "superheated steam"...; "" when unknown
 }
+
+// Given is the Source of a value the file states for the stream itself.
+const Given = "given"
 
 // UnitBalance is the solved balance of one unit. Unknown values are NaN.
 type UnitBalance struct {
@@ -194,4 +197,8 @@ type UnitBalance struct {
 	Duty                float64 // W, heat added to the fluid (NaN when the kind has none)
 	Power               float64 // W, shaft power (NaN when the kind has none)
 	Sgen                float64 // W/K, entropy generated (NaN when unknown)
+	Efficiency          float64 // the kind's efficiency parameter, given or solved (NaN when none)
+	// Relative closure |in - out| / max(|in|, |out|) of a balance that was redundant; NaN when
+	// the balance was used to solve (it then closes by construction).
+	MassClosure, EnergyClosure float64
 }

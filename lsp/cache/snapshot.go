@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"io"
 	"runtime/debug"
+	"slices"
 	"sync"
 
 	"go.lsp.dev/protocol"
@@ -147,7 +148,8 @@ func (s *Snapshot) internalError(stage string, r any) model.Diagnostic {
 	}
 }
 
-// Diagnostics is the full set for the snapshot: the check's, then the solver's when sol is not nil.
+// Diagnostics is the full set for the snapshot: the check's and, when sol is not nil, the
+// solver's, in hmb check's order (by start, the check's first among equals).
 func (s *Snapshot) Diagnostics(sol *Solution) []model.Diagnostic {
 	syn := s.Syntax()
 	out := make([]model.Diagnostic, 0, len(syn.Diagnostics))
@@ -155,5 +157,6 @@ func (s *Snapshot) Diagnostics(sol *Solution) []model.Diagnostic {
 	if sol != nil {
 		out = append(out, sol.Diagnostics...)
 	}
+	slices.SortStableFunc(out, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return out
 }

@@ -33,6 +33,12 @@ func Completion(snap *cache.Snapshot, off int) *protocol.CompletionList {
 			TextEdit: &protocol.TextEdit{Range: rng, NewText: label},
 		})
 	}
+	// Inside a block the properties come first: they are what is written there most.
+	if site.Kinds&cache.SiteProp != 0 {
+		for _, p := range propOrder {
+			add(p.String(), protocol.CompletionItemKindProperty, propDoc[p.String()])
+		}
+	}
 	if site.Kinds&cache.SiteKeyword != 0 {
 		for _, k := range snap.Analyzer().Keywords() {
 			add(k.Name, protocol.CompletionItemKindKeyword, k.Doc)
@@ -58,11 +64,6 @@ func Completion(snap *cache.Snapshot, off int) *protocol.CompletionList {
 			for _, p := range k.Params {
 				add(p.Name, protocol.CompletionItemKindProperty, p.Dim.String()+": "+p.Doc)
 			}
-		}
-	}
-	if site.Kinds&cache.SiteProp != 0 {
-		for _, p := range propOrder {
-			add(p.String(), protocol.CompletionItemKindProperty, propDoc[p.String()])
 		}
 	}
 	if site.Kinds&cache.SiteSpelling != 0 {

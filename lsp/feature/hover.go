@@ -131,9 +131,10 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 	base := siBase[u.Dim()]
 	if t > 0 && syn.Tokens[t-1].Kind == cache.NumberToken {
 		num := syn.Tokens[t-1].Span
-		if v, _, err := units.ParseQuantity(string(src[num.Start:num.End])); err == nil {
+		raw := string(src[num.Start:num.End])
+		if v, _, err := units.ParseQuantity(raw); err == nil {
 			si := u.ToSI(v, syn.Atm)
-			fmt.Fprintf(&b, "\n\n%s %s = %s %s", units.Format(v, 15), spelling, units.Format(si, 7), base)
+			fmt.Fprintf(&b, "\n\n%s %s = %s %s", raw, spelling, units.Format(si, 7), base)
 			if u.Gauge() {
 				b.WriteString(" absolute")
 			}
@@ -177,8 +178,11 @@ func StreamHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) stri
 	for q := cache.Quantity(0); q < cache.NumQuantities; q++ {
 		v := st.Values[q]
 		val := show(v, q.Dim(), syn.Display, syn.Atm)
-		if q == cache.QX && !math.IsNaN(v) {
+		switch {
+		case q == cache.QX && !math.IsNaN(v):
 			val = units.Format(v, 4)
+		case q == cache.QX && st.Phase != "":
+			val = "none (single phase)"
 		}
 		fmt.Fprintf(&b, "| %s | %s | %s |\n", q, val, mdCell(st.Source[q]))
 	}
@@ -216,8 +220,18 @@ func UnitHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string
 	if !math.IsNaN(u.Power) {
 		fmt.Fprintf(&b, "\npower %s", show(u.Power, units.Power, sys, atm))
 	}
+	if !math.IsNaN(u.Efficiency) {
+		fmt.Fprintf(&b, "\nefficiency %s", units.Format(u.Efficiency, 4))
+	}
 	if !math.IsNaN(u.Sgen) {
 		fmt.Fprintf(&b, "\nentropy generated %s", showSgen(u.Sgen, sys))
+	}
+	// A closure is known only for a balance that was redundant: it checks the givens.
+	if !math.IsNaN(u.MassClosure) {
+		fmt.Fprintf(&b, "\nmass balance closes within %s%%", units.Format(100*u.MassClosure, 3))
+	}
+	if !math.IsNaN(u.EnergyClosure) {
+		fmt.Fprintf(&b, "\nenergy balance closes within %s%%", units.Format(100*u.EnergyClosure, 3))
 	}
 	return b.String()
 }

@@ -14,8 +14,9 @@ import (
 	"hmb/thermo/units"
 )
 
-// hinted are the quantities a stream hint may show, in order; s and v stay in the hover.
-var hinted = []cache.Quantity{cache.QFlow, cache.QP, cache.QT, cache.QH, cache.QX}
+// hinted are the quantities a stream hint may show, in order: the two that say at a glance where
+// a state lies. The rest stays in the hover.
+var hinted = []cache.Quantity{cache.QT, cache.QX}
 
 // InlayHints returns the hints for declarations that end inside span. It waits (under ctx) for
 // the solution; a superseded snapshot gets none.
@@ -58,13 +59,13 @@ func InlayHints(ctx context.Context, snap *cache.Snapshot, span model.Span) ([]e
 	return out, nil
 }
 
-// StreamHint lists the solved values of a stream that were not given: "T 185.3 C, h 2790 kJ/kg".
-// Quality shows only for wet steam.
+// StreamHint lists the solved temperature and quality of a stream, when the file did not give
+// them: "T 99.606 C, x 0.9702". Quality shows only on and inside the saturation dome.
 func StreamHint(syn *cache.Syntax, st *cache.StreamState) string {
 	var parts []string
 	for _, q := range hinted {
 		v := st.Values[q]
-		if math.IsNaN(v) || math.IsInf(v, 0) || st.Source[q] == "given" {
+		if math.IsNaN(v) || math.IsInf(v, 0) || st.Source[q] == cache.Given {
 			continue
 		}
 		if q == cache.QX {

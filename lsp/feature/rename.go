@@ -10,13 +10,13 @@ import (
 	"hmb/lsp/cache"
 )
 
-// PrepareRename returns the range of the name at off, or an error when off is on no stream or
-// unit name.
+// PrepareRename returns the range of the name at off, or nil (the protocol's "no rename here")
+// when off is on no stream or unit name.
 func PrepareRename(snap *cache.Snapshot, off int) (*protocol.Range, error) {
 	syn := snap.Syntax()
 	i := refAt(syn, off)
 	if i < 0 || syn.Refs[i].Symbol < 0 {
-		return nil, fmt.Errorf("no stream or unit name here")
+		return nil, nil
 	}
 	r := snap.Mapper.Range(syn.Refs[i].Span)
 	return &r, nil
