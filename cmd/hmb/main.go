@@ -21,15 +21,17 @@ usage:
         solve every calc file (*.hmb, directories recursively) and report problems
   hmb fmt [-w] [--check] PATH...
         print calc files in canonical layout (-w rewrites them, --check lists those that differ)
-  hmb props [--si|--us] [--json] NAME=VALUE NAME=VALUE
+  hmb props [--si|--us] [--json] [--atm P | --elevation Z] NAME=VALUE NAME=VALUE
         water/steam state from two properties, e.g. hmb props p=150psig x=1
-        names: p T h s x (and v or u are not accepted as inputs)
+        NAME is any two of p T h s x; gauge pressures read against --atm or --elevation
   hmb table [--format md|csv|html] [--si|--us] [-o OUT] FILE
         stream and unit tables of one solved calc file
   hmb plot [--kind Ts|hs|ph] [--si|--us] [-o out.svg] FILE
         property diagram (SVG) with the saturation dome, isobars, streams and units
   hmb report [--si|--us] [-o out.html] FILE
         one self-contained HTML page: caution, tables, diagrams, expectations, findings
+  hmb lsp
+        language server on stdin and stdout (for editors; see editors/README.md)
   hmb version
 
 Results support, and do not replace, code-compliant design and review by a licensed engineer.
