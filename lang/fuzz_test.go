@@ -8,6 +8,7 @@ import (
 
 	"hmb/lang/format"
 	"hmb/lang/parser"
+	"hmb/lang/source"
 )
 
 func addCorpus(f *testing.F) {
@@ -25,11 +26,21 @@ func addCorpus(f *testing.F) {
 	f.Add([]byte("{{{ }}} ;;; , = <= ± +- +/-"))
 }
 
-// FuzzParse: the parser never panics, and every diagnostic lies within the file.
+// FuzzParse: the parser never panics, every diagnostic lies within the file, and the line
+// starts the parser takes from its tokens are those source.New finds in the text.
 func FuzzParse(f *testing.F) {
 	addCorpus(f)
 	f.Fuzz(func(t *testing.T, src []byte) {
 		file, diags := parser.Parse("fuzz.hmb", src)
+		lines := source.New("fuzz.hmb", src)
+		if n := lines.LineCount(); file.Src.LineCount() != n {
+			t.Fatalf("the parser's file has %d lines, the text %d", file.Src.LineCount(), n)
+		}
+		for l := range lines.LineCount() {
+			if a, b := file.Src.LineStart(l), lines.LineStart(l); a != b {
+				t.Fatalf("line %d starts at %d in the parser's file, at %d in the text", l, a, b)
+			}
+		}
 		for _, d := range diags {
 			if d.Span.Start < 0 || d.Span.End > len(src) || d.Span.Start > d.Span.End {
 				t.Fatalf("diagnostic %s %q has span %v outside [0,%d]", d.Code, d.Message, d.Span, len(src))

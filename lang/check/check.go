@@ -64,9 +64,8 @@ const DefaultTolerance = 0.001
 // is left out, a broken given is dropped, and Model.Incomplete is set whenever anything was left
 // out or f has syntax errors. Diagnostics are sorted by position.
 func Check(f *ast.File) (*model.Model, []model.Diagnostic, *Info) {
-	c := &checker{f: f, info: &Info{Objects: map[string]*Object{}},
-		m:        &model.Model{Atm: units.StandardAtmosphere, Tolerance: DefaultTolerance, Display: units.SI},
-		streamAt: map[string]int{}}
+	c := &checker{f: f, m: &model.Model{Atm: units.StandardAtmosphere, Tolerance: DefaultTolerance, Display: units.SI}}
+	c.size()
 	c.settings()
 	c.declare()
 	c.streams()
@@ -84,13 +83,90 @@ func Check(f *ast.File) (*model.Model, []model.Diagnostic, *Info) {
 }
 
 type checker struct {
-	f        *ast.File
-	m        *model.Model
-	info     *Info
-	diags    []model.Diagnostic
-	streamAt map[string]int // stream name -> index in m.Streams
-	decls    []ast.Stmt     // first declarations, in order
-	ports    []portUse
+	f     *ast.File
+	m     *model.Model
+	info  *Info
+	diags []model.Diagnostic
+	decls []decl // first declarations, in order
+	ports []portUse
+	// Counts of the file's declarations, for sizing what the checker makes.
+	nStreams, nUnits, nPorts int
+
+	// The model and the objects come from slabs cut to the file's size: one allocation per
+	// stream, unit and given would dominate the check of a large file.
+	objects []Object
+	streamS []model.Stream
+	unitS   []model.Unit
+	givenS  []model.Given
+	portS   []model.Port
+	refS    []*ast.Ident
+
+	unitMemo     [16]unitMemo // see lookupUnit
+	lastKindName string       // see kind
+	lastKind     *model.Kind
+}
+
+// decl is a first declaration with the object it declares.
+type decl struct {
+	stmt ast.Stmt
+	obj  *Object
+}
+
+// size counts the declarations and entries of the file, and makes the slabs and tables to fit.
+func (c *checker) size() {
+	nGiven := 0
+	for _, s := range c.f.Stmts {
+		switch s := s.(type) {
+		case *ast.StreamDecl:
+			c.nStreams += 1 + len(s.More)
+			if s.Block != nil {
+				nGiven += len(s.Block.Entries)
+			}
+		case *ast.UnitDecl:
+			c.nUnits++
+			if s.Block != nil {
+				for _, e := range s.Block.Entries {
+					switch e := e.(type) {
+					case *ast.Names:
+						c.nPorts += len(e.Names)
+					case *ast.Given:
+						nGiven++
+					}
+				}
+			}
+		}
+	}
+	n := c.nStreams + c.nUnits
+	c.info = &Info{Objects: make(map[string]*Object, n)}
+	if n > 0 {
+		c.info.Order = make([]*Object, 0, n)
+	}
+	c.decls = make([]decl, 0, n)
+	c.objects = make([]Object, n)
+	c.streamS = make([]model.Stream, c.nStreams)
+	c.unitS = make([]model.Unit, c.nUnits)
+	c.givenS = make([]model.Given, nGiven)
+	c.portS = make([]model.Port, c.nPorts)
+	c.refS = make([]*ast.Ident, 2*c.nStreams) // a stream is named twice: where it enters, where it leaves
+	c.ports = make([]portUse, 0, c.nPorts)
+}
+
+// take returns the next element of a slab, or a new one should the count have been short. The
+// element is zero and used by no one; callers set its fields one by one (see parser's slab).
+func take[T any](s *[]T) *T {
+	if len(*s) == 0 {
+		return new(T)
+	}
+	x := &(*s)[0]
+	*s = (*s)[1:]
+	return x
+}
+
+// newGiven stores a lowered given.
+func (c *checker) newGiven(v, tol float64, unit string, at model.Span) *model.Given {
+	g := take(&c.givenS)
+	g.Value, g.Tol, g.Unit, g.Span = v, tol, unit, at
+	return g
 }
 
 func span(n ast.Node) model.Span { return model.Span{Start: n.Pos(), End: n.End()} }
@@ -129,7 +205,8 @@ func (c *checker) declare() {
 			d.Related = related(prev.Decl, "first declared here")
 			return nil
 		}
-		o := &Object{Name: id.Name, IsUnit: isUnit, Decl: id, Index: -1}
+		o := take(&c.objects)
+		o.Name, o.IsUnit, o.Decl, o.Index = id.Name, isUnit, id, -1
 		c.info.Objects[id.Name] = o
 		c.info.Order = append(c.info.Order, o)
 		return o
@@ -144,24 +221,32 @@ func (c *checker) declare() {
 				if s.Label != nil {
 					o.Label = s.Label.Value
 				}
-				c.decls = append(c.decls, s)
+				c.decls = append(c.decls, decl{s, o})
 			}
 			for _, n := range s.More {
 				if o := add(n, false, s); o != nil {
-					c.decls = append(c.decls, &ast.StreamDecl{Keyword: s.Keyword, Name: n})
+					c.decls = append(c.decls, decl{&ast.StreamDecl{Keyword: s.Keyword, Name: n}, o})
 				}
 			}
 		case *ast.UnitDecl:
 			if o := add(s.Name, true, s); o != nil {
 				o.KindName = s.Kind.Name
-				o.Kind = model.Kinds[s.Kind.Name]
+				o.Kind = c.kind(s.Kind.Name)
 				if s.Label != nil {
 					o.Label = s.Label.Value
 				}
-				c.decls = append(c.decls, s)
+				c.decls = append(c.decls, decl{s, o})
 			}
 		}
 	}
+}
+
+// kind looks up a unit kind, remembering the last: units of one kind tend to come together.
+func (c *checker) kind(name string) *model.Kind {
+	if name != c.lastKindName || c.lastKind == nil {
+		c.lastKindName, c.lastKind = name, model.Kinds[name]
+	}
+	return c.lastKind
 }
 
 // lookup resolves a mention of a name and records it.
@@ -170,6 +255,9 @@ func (c *checker) lookup(id *ast.Ident) *Object {
 	if !ok {
 		c.info.Unresolved = append(c.info.Unresolved, id)
 		return nil
+	}
+	if o.Refs == nil && len(c.refS) >= 2 {
+		o.Refs, c.refS = c.refS[:0:2], c.refS[2:]
 	}
 	o.Refs = append(o.Refs, id)
 	return o

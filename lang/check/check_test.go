@@ -133,6 +133,10 @@ func TestDiagnostics(t *testing.T) {
 			[]want{{code: "V303", at: "80", msg: "efficiency 80 must be above 0 and at most 1 (100 %)"}}, false},
 		{"efficiency of zero", "stream A, B\npump P { in A; out B; efficiency 0 % }",
 			[]want{{code: "V303", at: "0 %", msg: "efficiency 0 % must be above 0 and at most 1 (100 %)"}}, false},
+		{"pressure drop below zero", "stream A, B\nvalve V { in A; out B; dp -0.5 bar }",
+			[]want{{code: "V316", at: "-0.5 bar", msg: "dp -0.5 bar is a pressure drop below zero: a valve does not raise the pressure"}}, false},
+		{"hot-side pressure drop below zero, in gauge units", "stream A, B, C, D\nexchanger E { hot_in A; hot_out B; cold_in C; cold_out D; dp_hot -2 psig }",
+			[]want{{code: "V316", at: "-2 psig", msg: "dp_hot -2 psig is a pressure drop below zero: an exchanger does not raise the pressure"}}, false},
 		// -15 psig at the standard atmosphere (14.696 psia) is -0.30 psia.
 		{"gauge pressure below a full vacuum", "stream A { p -15 psig }",
 			[]want{{code: "V304", at: "-15 psig", msg: "p -15 psig is at or below zero absolute: at this site's atmosphere a full vacuum is -14.70 psig"}}, false},
@@ -298,6 +302,7 @@ func TestValues(t *testing.T) {
 		{"pressure drop in gauge units is a difference", "stream A, B\nvalve V { in A; out B; dp 2 psig }", unitParam("dp"),
 			2 * psi, 0},
 		{"pressure drop", "stream A, B\nvalve V { in A; out B; dp 0.5 bar }", unitParam("dp"), 0.5e5, 0},
+		{"no pressure drop", "stream A, B\nheater H { in A; out B; dp 0 bar }", unitParam("dp"), 0, 0},
 		{"expectation within %", "stream A, B\nvalve V { in A; out B }\nexpect B T = 300 C within 1 %", expectation,
 			573.15, 3},
 		// Enthalpy below zero is a real state: Debian's python3-iapws 1.5.2,

@@ -33,6 +33,7 @@ const (
 	CodeRange          = "V313"
 	CodeEntryForm      = "V314"
 	CodeStreamList     = "V315"
+	CodeNegativeDrop   = "V316"
 )
 
 // Codes documents the checker's diagnostic codes.
@@ -64,4 +65,5 @@ var Codes = []model.CodeInfo{
 	{Code: CodeRange, Severity: model.Error, Summary: "number too large to represent"},
 	{Code: CodeEntryForm, Severity: model.Error, Summary: "names where a value is needed, or a value where names are"},
 	{Code: CodeStreamList, Severity: model.Error, Summary: "label or block on a list of several stream names"},
+	{Code: CodeNegativeDrop, Severity: model.Error, Summary: "pressure drop (dp, dp_hot, dp_cold) below zero"},
 }

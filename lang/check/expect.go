@@ -1,7 +1,6 @@
 package check
 
 import (
-	"fmt"
 	"slices"
 
 	"hmb/lang/ast"
@@ -78,7 +77,7 @@ func (c *checker) expect(e *ast.Expect) {
 		x.Stream = o.Index
 		dim = p.Dim()
 	}
-	what := fmt.Sprintf("%s of %s", prop, o.Name)
+	what := prop + " of " + o.Name
 	var u units.Unit
 	if prop == "sgen" {
 		scale, ok := entropyRate(spelling(e.Value))

@@ -24,7 +24,7 @@ func (c *checker) unitOf(q *ast.Quantity, want units.Dim, what string, allowDiff
 		c.errorf(CodeRange, q, "%s is too large a number", q.Raw)
 		return units.Unit{}, false
 	}
-	u, err := units.Lookup(spelling(q))
+	u, err := c.lookupUnit(spelling(q))
 	if err != nil {
 		d := c.errorf(CodeUnknownUnit, q.Unit, "unknown unit %s", q.Unit.Name)
 		if ue, ok := err.(*units.UnknownError); ok && ue.Suggestion != "" {
@@ -47,6 +47,33 @@ func (c *checker) unitOf(q *ast.Quantity, want units.Dim, what string, allowDiff
 		c.errorf(CodeDimension, q.Unit, "%s is a %s, but %s is a unit of %s; use, for example, %s", what, want, q.Unit.Name, got, examples(want))
 	}
 	return u, false
+}
+
+// lookupUnit is units.Lookup, remembering the spellings found: a file writes the same few
+// units thousands of times.
+func (c *checker) lookupUnit(spelling string) (units.Unit, error) {
+	slot := &c.unitMemo[(len(spelling)+int(firstByte(spelling)))%len(c.unitMemo)]
+	if slot.ok && slot.spelling == spelling {
+		return slot.unit, nil
+	}
+	u, err := units.Lookup(spelling)
+	if err == nil {
+		*slot = unitMemo{spelling, u, true}
+	}
+	return u, err
+}
+
+type unitMemo struct {
+	spelling string
+	unit     units.Unit
+	ok       bool
+}
+
+func firstByte(s string) byte {
+	if s == "" {
+		return 0
+	}
+	return s[0]
 }
 
 // examples names a dimension's usual units in both systems.

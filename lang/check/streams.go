@@ -15,6 +15,9 @@ var StreamKeys = [...]string{"flow", "p", "T", "h", "s", "x", "fluid"}
 
 var propByName = map[string]model.Prop{"flow": model.Flow, "p": model.P, "T": model.T, "h": model.H, "s": model.S, "x": model.X}
 
+// streamProps is the property of each of StreamKeys but fluid, by index.
+var streamProps = [...]model.Prop{model.Flow, model.P, model.T, model.H, model.S, model.X}
+
 // propWords maps the words of the trade, written out, to the notation's short property names:
 // their edit distance is too large for a spelling suggestion to find them. (One-letter names in
 // the wrong case, P for p, are found by the spelling suggestion.)
@@ -38,17 +41,20 @@ func suggestProp(d *model.Diagnostic, word string, candidates []string) {
 
 // streams lowers every declared stream with its givens.
 func (c *checker) streams() {
-	for _, s := range c.decls {
-		s, ok := s.(*ast.StreamDecl)
+	if c.nStreams > 0 {
+		c.m.Streams = make([]*model.Stream, 0, c.nStreams)
+	}
+	for _, d := range c.decls {
+		s, ok := d.stmt.(*ast.StreamDecl)
 		if !ok {
 			continue
 		}
-		st := &model.Stream{Name: s.Name.Name, Fluid: "water", Span: span(s.Name)}
+		st := take(&c.streamS)
+		st.Name, st.Fluid, st.Span = s.Name.Name, "water", span(s.Name)
 		if s.Label != nil {
 			st.Label = s.Label.Value
 		}
-		c.info.Objects[st.Name].Index = len(c.m.Streams)
-		c.streamAt[st.Name] = len(c.m.Streams)
+		d.obj.Index = len(c.m.Streams)
 		c.m.Streams = append(c.m.Streams, st)
 		if s.Block == nil {
 			continue
@@ -100,7 +106,7 @@ func (c *checker) streamEntry(st *model.Stream, e ast.Entry, seen *[len(StreamKe
 		c.errorf(CodeEntryForm, e, "%s takes a number with its unit, not names", key.Name)
 		return
 	}
-	prop := propByName[key.Name]
+	prop := streamProps[ki]
 	v, u, ok := c.convert(g.Value, prop.Dim(), key.Name, false)
 	if !ok {
 		return
@@ -108,13 +114,13 @@ func (c *checker) streamEntry(st *model.Stream, e ast.Entry, seen *[len(StreamKe
 	if !c.plausible(prop, g.Value, v, u) {
 		return
 	}
-	gv := &model.Given{Value: v, Unit: spelling(g.Value), Span: span(g)}
+	gv := model.Given{Value: v, Unit: spelling(g.Value), Span: span(g)}
 	if g.Tol != nil {
 		if gv.Tol, ok = c.tolerance(g.Tol, g.Value, u, prop.Dim(), key.Name); !ok {
 			return
 		}
 	}
-	st.Given[prop] = gv
+	st.Given[prop] = c.newGiven(gv.Value, gv.Tol, gv.Unit, gv.Span)
 }
 
 // plausible rejects values no state can have: below absolute zero, negative flow, a quality

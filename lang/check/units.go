@@ -33,8 +33,13 @@ func find[T any](s []seenKey[T], key string) (T, bool) {
 	return zero, false
 }
 
-// roleAliases are other spellings accepted for a role.
-var roleAliases = map[string]string{"vapour": "vapor"}
+// canonicalRole maps other spellings accepted for a role to the role's name.
+func canonicalRole(role string) string {
+	if role == "vapour" {
+		return "vapor"
+	}
+	return role
+}
 
 // Keys lists the roles and parameters of a kind, for completion and suggestions.
 func Keys(k *model.Kind) []string {
@@ -50,12 +55,15 @@ func Keys(k *model.Kind) []string {
 
 // units checks every unit declaration and lowers those whose ports all resolve.
 func (c *checker) units() {
-	for _, s := range c.decls {
-		s, ok := s.(*ast.UnitDecl)
+	if c.nUnits > 0 {
+		c.m.Units = make([]*model.Unit, 0, c.nUnits)
+	}
+	for _, d := range c.decls {
+		s, ok := d.stmt.(*ast.UnitDecl)
 		if !ok {
 			continue
 		}
-		o := c.info.Objects[s.Name.Name]
+		o := d.obj
 		if o.Kind == nil {
 			d := c.errorf(CodeUnknownKind, s.Kind, "unknown unit kind %s (kinds: %s)", s.Kind.Name, strings.Join(kindNames(), ", "))
 			suggest(d, s.Kind.Name, kindNames())
@@ -70,7 +78,9 @@ func (c *checker) units() {
 
 func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 	k := o.Kind
-	u := &model.Unit{Name: o.Name, Label: o.Label, Kind: k, Span: span(s.Name), Params: map[string]*model.Given{}}
+	u := take(&c.unitS)
+	u.Name, u.Label, u.Kind, u.Span = o.Name, o.Label, k, span(s.Name)
+	u.Params = make(map[string]*model.Given, len(k.Params))
 	complete := true
 	// Kinds have a handful of roles and parameters: small slices beat maps here.
 	var rs [8]seenKey[*ast.Names]
@@ -79,17 +89,18 @@ func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 	roleSeen := rs[:0]
 	mentioned := ms[:0] // roles named, even wrongly: no "missing" report for them
 	paramSeen := ps[:0]
-	u.Ports = make([]model.Port, 0, len(k.Ports))
+	if n := len(k.Ports); len(c.portS) >= n {
+		u.Ports, c.portS = c.portS[:0:n], c.portS[n:]
+	} else {
+		u.Ports = make([]model.Port, 0, n)
+	}
 	broken := false // a syntax error may hide a port: then missing ports are not reported
 	for _, e := range s.Block.Entries {
 		switch e := e.(type) {
 		case *ast.Bad:
 			broken, complete = true, false
 		case *ast.Names:
-			role := e.Key.Name
-			if alias, ok := roleAliases[role]; ok {
-				role = alias
-			}
+			role := canonicalRole(e.Key.Name)
 			spec := k.Port(role)
 			mentioned = append(mentioned, role)
 			if spec == nil {
@@ -138,10 +149,7 @@ func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 				u.Ports = append(u.Ports, model.Port{Role: role, Stream: st.Index, Span: span(n)})
 			}
 		case *ast.Given:
-			role := e.Key.Name
-			if alias, ok := roleAliases[role]; ok {
-				role = alias
-			}
+			role := canonicalRole(e.Key.Name)
 			mentioned = append(mentioned, role)
 			var ok bool
 			if paramSeen, ok = c.param(o, e, u, paramSeen); !ok {
@@ -196,10 +204,7 @@ func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[a
 	name := g.Key.Name
 	spec := k.Param(name)
 	if spec == nil {
-		role := name
-		if alias, ok := roleAliases[name]; ok {
-			role = alias
-		}
+		role := canonicalRole(name)
 		if k.Port(role) != nil {
 			c.errorf(CodeEntryForm, g, "%s takes stream names, not a number", name)
 			return seen, false
@@ -229,27 +234,32 @@ func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[a
 	if spec.Dim == units.Dimensionless && !c.fraction(g.Value, v, name, false) {
 		return seen, false
 	}
-	gv := &model.Given{Value: v, Unit: spelling(g.Value), Span: span(g)}
+	// Every pressure difference of the catalogue (dp, dp_hot, dp_cold) is documented as a drop,
+	// inlet to outlet: a valve, a heater or an exchanger side has no work input to raise the
+	// pressure, so a value below zero is a sign slip, which the solver would take as a gain.
+	if spec.Dim == units.Pressure && spec.Delta && v < 0 {
+		c.errorf(CodeNegativeDrop, g.Value, "%s %s%s is a pressure drop below zero: %s does not raise the pressure",
+			name, g.Value.Raw, unitSuffix(g.Value), article(k.Name))
+		return seen, false
+	}
+	gv := model.Given{Value: v, Unit: spelling(g.Value), Span: span(g)}
 	if g.Tol != nil {
 		if gv.Tol, ok = c.tolerance(g.Tol, g.Value, un, spec.Dim, name+" of "+o.Name); !ok {
 			return seen, false
 		}
 	}
-	u.Params[name] = gv
+	u.Params[name] = c.newGiven(gv.Value, gv.Tol, gv.Unit, gv.Span)
 	return seen, true
 }
 
 // wiring checks that each stream leaves at most one unit and enters at most one, never the same.
 func (c *checker) wiring() {
+	// Every stream object has its index in m.Streams by now: the ends are kept by that index.
 	type ends struct{ from, to *portUse }
-	byStream := map[*Object]*ends{}
+	byStream := make([]ends, len(c.m.Streams))
 	for i := range c.ports {
 		p := &c.ports[i]
-		e := byStream[p.stream]
-		if e == nil {
-			e = &ends{}
-			byStream[p.stream] = e
-		}
+		e := &byStream[p.stream.Index]
 		slot, code, verb := &e.to, CodeTwoConsumers, "enters"
 		if !p.spec.Inlet {
 			slot, code, verb = &e.from, CodeTwoProducers, "leaves"
@@ -276,7 +286,7 @@ func (c *checker) wiring() {
 		}
 	}
 	for _, o := range c.info.Order {
-		if !o.IsUnit && byStream[o] == nil {
+		if !o.IsUnit && byStream[o.Index] == (ends{}) {
 			c.report(model.Warning, CodeUnconnected, o.Decl, "stream %s is not connected to any unit", o.Name)
 		}
 	}

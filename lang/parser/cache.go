@@ -44,3 +44,43 @@ func (c *shapeCache) put(key string, r any) {
 	}
 	c.mu.Unlock()
 }
+
+// localShapes fronts the shared cache for one parse. A short piece's shape packs into a word
+// (the production tag, then five bits a token), looked up in a small open-addressed table: no
+// lock, no string hashing, for the thousands of pieces of a large file that share a few shapes.
+type localShapes struct {
+	keys [localSlots]uint64 // 0: empty slot (a packed shape starts with a tag, never 0)
+	vals [localSlots]any
+	n    int
+}
+
+const (
+	localSlots = 64
+	localMax   = localSlots * 3 / 4 // keep probes short and a free slot always there
+	packMax    = 12                 // tokens that fit in a packed shape: 3 + 12*5 bits
+)
+
+func localSlot(k uint64) int { return int(k * 0x9E3779B97F4A7C15 >> 58) } // Fibonacci hashing, 6 bits
+
+func (l *localShapes) get(k uint64) (any, bool) {
+	for i := localSlot(k); ; i = (i + 1) % localSlots {
+		switch l.keys[i] {
+		case k:
+			return l.vals[i], true
+		case 0:
+			return nil, false
+		}
+	}
+}
+
+func (l *localShapes) put(k uint64, r any) {
+	if l.n >= localMax {
+		return
+	}
+	i := localSlot(k)
+	for l.keys[i] != 0 {
+		i = (i + 1) % localSlots
+	}
+	l.keys[i], l.vals[i] = k, r
+	l.n++
+}

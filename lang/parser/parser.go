@@ -9,6 +9,7 @@
 package parser
 
 import (
+	"bytes"
 	"fmt"
 	"slices"
 	"strconv"
@@ -28,7 +29,9 @@ import (
 func Parse(filename string, src []byte) (*ast.File, []model.Diagnostic) {
 	toks, errs := token.Scan(src)
 	p := &parser{src: src, str: string(src), toks: toks}
-	p.file = &ast.File{Src: source.New(filename, src), Tokens: toks}
+	p.file = &ast.File{Tokens: toks}
+	lines := p.sizeArenas()
+	p.file.Src = source.NewLines(filename, src, lines)
 	for _, e := range errs {
 		code := CodeIllegal
 		if src[e.Pos] == '"' {
@@ -36,12 +39,22 @@ func Parse(filename string, src []byte) (*ast.File, []model.Diagnostic) {
 		}
 		p.errorf(code, e.Pos, e.End, "%s", e.Msg)
 	}
-	for _, t := range toks {
-		if t.Kind == token.Comment {
-			p.file.Comments = append(p.file.Comments, &ast.Comment{Hash: t.Pos, Text: p.str[t.Pos:t.End]})
+	if p.nComments > 0 {
+		p.file.Comments = make([]*ast.Comment, p.nComments)
+		cs := make([]ast.Comment, p.nComments)
+		k := 0
+		for _, t := range toks {
+			if t.Kind == token.Comment {
+				cs[k] = ast.Comment{Hash: t.Pos, Text: p.str[t.Pos:t.End]}
+				p.file.Comments[k] = &cs[k]
+				k++
+			}
 		}
 	}
 	p.parseFile()
+	if len(p.file.Stmts) == 0 {
+		p.file.Stmts = nil // as for a file that was never given a statement
+	}
 	slices.SortStableFunc(p.diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	if len(p.diags) > MaxErrors || p.dropped > 0 {
 		more := len(p.diags) - MaxErrors + p.dropped
@@ -65,30 +78,103 @@ const MaxErrors = 100
 const keepErrors = 10 * MaxErrors
 
 type parser struct {
-	src     []byte
-	str     string // src as one string; names are substrings of it
-	toks    []token.Token
-	file    *ast.File
-	diags   []model.Diagnostic
-	dropped int           // syntax errors past keepErrors, counted but not kept
-	piece   []token.Token // scratch: the significant tokens of the current piece
-	entries []ast.Entry   // scratch: the entries of the current block
+	src       []byte
+	str       string // src as one string; names are substrings of it
+	toks      []token.Token
+	file      *ast.File
+	diags     []model.Diagnostic
+	dropped   int           // syntax errors past keepErrors, counted but not kept
+	piece     []token.Token // scratch: the significant tokens of the current piece
+	entries   []ast.Entry   // scratch: the entries of the current block
+	shapes    localShapes   // this parse's view of the shape cache
+	nComments int
 
 	// Nodes come from slabs: a file has tens of thousands of names and numbers, and one
-	// allocation each would dominate the parse.
-	idents slab[ast.Ident]
-	qtys   slab[ast.Quantity]
-	givens slab[ast.Given]
+	// allocation each would dominate the parse (and the collector's work after it).
+	idents  slab[ast.Ident]
+	qtys    slab[ast.Quantity]
+	givens  slab[ast.Given]
+	names   slab[ast.Names]
+	blocks  slab[ast.Block]
+	streams slab[ast.StreamDecl]
+	units   slab[ast.UnitDecl]
+	strs    slab[ast.String]
+	tols    slab[ast.Tol]
+	// Slices of the tree (a block's entries, a list's names) are cut from shared arrays.
+	entryArr arena[ast.Entry]
+	identArr arena[*ast.Ident]
 }
 
-type slab[T any] struct{ buf []T }
+// sizeArenas counts the tokens by kind and sizes the first chunk of each slab, and the list of
+// statements, to fit the file: a large file then takes one allocation per kind of node, a small
+// one no more than it needs. Most counts bound the nodes from above (a name node per name token,
+// a block per "{"); a slab whose count falls short grows.
+//
+// It returns the line starts of the file too, which the same pass finds: every "\n" of the file
+// is a Newline token of its own.
+func (p *parser) sizeArenas() (lines []int) {
+	var n [32]int
+	streamKw := 0
+	lines = make([]int, 1, bytes.Count(p.src, newline)+1)
+	for _, t := range p.toks {
+		n[t.Kind&31]++
+		switch {
+		case t.Kind == token.Newline:
+			lines = append(lines, t.End)
+		case t.Kind == token.Ident && t.End-t.Pos == 6 && p.str[t.Pos:t.End] == "stream":
+			streamKw++
+		}
+	}
+	p.nComments = n[token.Comment]
+	p.idents.next = n[token.Ident] + n[token.Word] - streamKw // the keyword is no name
+	p.qtys.next = n[token.Number]
+	p.givens.next = n[token.Number] - n[token.PlusMinus]
+	p.names.next = n[token.LBrace]
+	p.blocks.next = n[token.LBrace]
+	p.streams.next = streamKw
+	p.units.next = n[token.LBrace] - streamKw + 8 // most streams have a block; a unit always has
+	p.strs.next = n[token.String]
+	p.tols.next = n[token.PlusMinus]
+	p.entryArr.next = n[token.Newline] + n[token.Semi]
+	p.identArr.next = n[token.Comma] + n[token.LBrace]
+	p.file.Stmts = make([]ast.Stmt, 0, n[token.LBrace]+n[token.Newline]/8+1)
+	return lines
+}
+
+var newline = []byte{'\n'}
+
+// slab hands out nodes from chunks; a chunk lives as long as any of its nodes. A node comes
+// zeroed, never used before: callers set the fields they need one by one, which spares the
+// collector's write barrier a pass over the whole node.
+type slab[T any] struct {
+	buf  []T
+	next int // size of the next chunk
+}
 
 func (s *slab[T]) new() *T {
 	if len(s.buf) == cap(s.buf) {
-		s.buf = make([]T, 0, 256)
+		s.buf = make([]T, 0, max(s.next, 8))
+		s.next = min(2*cap(s.buf), 1<<14)
 	}
 	s.buf = s.buf[:len(s.buf)+1]
 	return &s.buf[len(s.buf)-1]
+}
+
+// arena hands out slices cut from shared chunks. Each slice is capped at its length, so that an
+// append to it copies rather than overwriting its neighbour.
+type arena[T any] struct {
+	buf  []T
+	next int
+}
+
+func (a *arena[T]) take(n int) []T {
+	if cap(a.buf)-len(a.buf) < n {
+		a.buf = make([]T, 0, max(n, a.next, 8))
+		a.next = min(2*cap(a.buf), 1<<14)
+	}
+	i := len(a.buf)
+	a.buf = a.buf[:i+n]
+	return a.buf[i : i+n : i+n]
 }
 
 // errorf reports a syntax error; it returns the diagnostic, or nil when too many are held already.
@@ -184,37 +270,57 @@ func (p *parser) endsHeader(k token.Kind) bool {
 
 // significant collects the tokens of toks[i:j] other than comments and newlines (a list of names
 // may continue on the next line after a comma) into the scratch piece. Illegal characters are
-// left out too: the scanner has reported them, once is enough.
+// left out too: the scanner has reported them, once is enough. Most pieces hold none of these,
+// and are returned as they stand in toks, without a copy.
 func (p *parser) significant(i, j int) []token.Token {
-	p.piece = p.piece[:0]
-	for _, t := range p.toks[i:j] {
-		if t.Kind != token.Comment && t.Kind != token.Newline && t.Kind != token.Illegal {
-			p.piece = append(p.piece, t)
+	for k := i; k < j; k++ {
+		if !isSignificant(p.toks[k].Kind) {
+			p.piece = append(p.piece[:0], p.toks[i:k]...)
+			for _, t := range p.toks[k+1 : j] {
+				if isSignificant(t.Kind) {
+					p.piece = append(p.piece, t)
+				}
+			}
+			return p.piece
 		}
 	}
-	return p.piece
+	return p.toks[i:j:j]
+}
+
+func isSignificant(k token.Kind) bool {
+	return k != token.Comment && k != token.Newline && k != token.Illegal
 }
 
 // block parses the entries after the "{" at token lb, up to the matching "}", and returns the
 // index after the block. A block still open at the end of the file, or when a line that can only
 // start a statement comes, is reported and closed there.
 func (p *parser) block(lb int, owner ast.Stmt) (*ast.Block, int) {
-	b := &ast.Block{Lbrace: p.toks[lb].Pos, Rbrace: -1}
-	entries := p.entries[:0]
-	defer func() {
-		b.Entries = slices.Clone(entries)
-		p.entries = entries[:0]
-	}()
+	b := p.blocks.new()
+	b.Lbrace, b.Rbrace = p.toks[lb].Pos, -1
+	p.entries = p.entries[:0]
+	next := p.blockEntries(b, lb, owner)
+	if len(p.entries) == 0 {
+		b.Entries = p.entries[:0:0] // nil, or empty, as the scratch was
+	} else {
+		b.Entries = p.entryArr.take(len(p.entries))
+		copy(b.Entries, p.entries)
+	}
+	return b, next
+}
+
+// blockEntries collects the entries of the block b into p.entries and returns the index after
+// the block.
+func (p *parser) blockEntries(b *ast.Block, lb int, owner ast.Stmt) int {
 	i := lb + 1
 	for {
 		i = p.skip(i)
 		switch t := p.toks[i]; t.Kind {
 		case token.RBrace:
 			b.Rbrace = t.Pos
-			return b, i + 1
+			return i + 1
 		case token.EOF:
 			p.unclosed(b, owner, -1)
-			return b, i
+			return i
 		}
 		j, afterComma, startsStmt := i, false, false
 	line:
@@ -238,10 +344,10 @@ func (p *parser) block(lb int, owner ast.Stmt) (*ast.Block, int) {
 		first := p.toks[i]
 		if startsStmt || p.isKeyword(first, "stream") || p.isKeyword(first, "expect") {
 			p.unclosed(b, owner, first.Pos)
-			return b, i
+			return i
 		}
 		if piece := p.significant(i, j); len(piece) > 0 {
-			entries = append(entries, p.entry(piece))
+			p.entries = append(p.entries, p.entry(piece))
 		}
 		i = j
 	}
@@ -268,9 +374,13 @@ func (p *parser) streamDecl(piece []token.Token) ast.Stmt {
 	if bad != nil {
 		return bad
 	}
-	d := &ast.StreamDecl{Keyword: piece[0].Pos, Name: p.ident(piece, g.Name), Label: p.label(piece, g.Label)}
-	for _, n := range g.More {
-		d.More = append(d.More, p.ident(piece, n.Tok))
+	d := p.streams.new()
+	d.Keyword, d.Name, d.Label = piece[0].Pos, p.ident(piece, &g.Name), p.label(piece, g.Label)
+	if len(g.More) > 0 {
+		d.More = p.identArr.take(len(g.More))
+		for k := range g.More {
+			d.More[k] = p.ident(piece, &g.More[k].Tok)
+		}
 	}
 	return d
 }
@@ -280,7 +390,9 @@ func (p *parser) unitDecl(piece []token.Token) ast.Stmt {
 	if bad != nil {
 		return bad
 	}
-	return &ast.UnitDecl{Kind: p.ident(piece, g.Kind), Name: p.ident(piece, g.Name), Label: p.label(piece, g.Label)}
+	d := p.units.new()
+	d.Kind, d.Name, d.Label = p.ident(piece, &g.Kind), p.ident(piece, &g.Name), p.label(piece, g.Label)
+	return d
 }
 
 func (p *parser) setting(piece []token.Token) ast.Stmt {
@@ -291,12 +403,12 @@ func (p *parser) setting(piece []token.Token) ast.Stmt {
 	if bad != nil {
 		return bad
 	}
-	s := &ast.Setting{Key: p.ident(piece, g.Key), Str: p.label(piece, g.Str)}
+	s := &ast.Setting{Key: p.ident(piece, &g.Key), Str: p.label(piece, g.Str)}
 	if g.Qty != nil {
-		s.Qty = p.quantity(piece, *g.Qty)
+		s.Qty = p.quantity(piece, g.Qty)
 	}
 	if g.Ident != nil {
-		s.Word = p.ident(piece, *g.Ident)
+		s.Word = p.ident(piece, g.Ident)
 	}
 	return s
 }
@@ -307,8 +419,8 @@ func (p *parser) expect(piece []token.Token) ast.Stmt {
 		return bad
 	}
 	op := piece[g.Op.Pos.Offset]
-	return &ast.Expect{Keyword: piece[0].Pos, Target: p.ident(piece, g.Target), Prop: p.ident(piece, g.Prop),
-		OpPos: op.Pos, Op: p.text(op), Value: p.quantity(piece, g.Value), Tol: p.tol(piece, g.Tol),
+	return &ast.Expect{Keyword: piece[0].Pos, Target: p.ident(piece, &g.Target), Prop: p.ident(piece, &g.Prop),
+		OpPos: op.Pos, Op: p.text(op), Value: p.quantity(piece, &g.Value), Tol: p.tol(piece, g.Tol),
 		Label: p.label(piece, g.Label)}
 }
 
@@ -321,9 +433,10 @@ func (p *parser) entry(piece []token.Token) ast.Entry {
 		if bad != nil {
 			return bad
 		}
-		n := &ast.Names{Key: p.ident(piece, g.Key), Names: make([]*ast.Ident, len(g.Names))}
-		for k, t := range g.Names {
-			n.Names[k] = p.ident(piece, t.Tok)
+		n := p.names.new()
+		n.Key, n.Names = p.ident(piece, &g.Key), p.identArr.take(len(g.Names))
+		for k := range g.Names {
+			n.Names[k] = p.ident(piece, &g.Names[k].Tok)
 		}
 		return n
 	}
@@ -332,7 +445,7 @@ func (p *parser) entry(piece []token.Token) ast.Entry {
 		return bad
 	}
 	x := p.givens.new()
-	*x = ast.Given{Key: p.ident(piece, g.Key), Value: p.quantity(piece, g.Value), Tol: p.tol(piece, g.Tol)}
+	x.Key, x.Value, x.Tol = p.ident(piece, &g.Key), p.quantity(piece, &g.Value), p.tol(piece, g.Tol)
 	return x
 }
 
@@ -344,10 +457,10 @@ func (p *parser) missingValue(t token.Token) *ast.Bad {
 // Conversions from a production's result. Captured tokens carry, in Pos.Offset, their index in the
 // piece (see parsePiece), never text or positions of their own.
 
-func (p *parser) ident(piece []token.Token, t lexer.Token) *ast.Ident {
+func (p *parser) ident(piece []token.Token, t *lexer.Token) *ast.Ident {
 	tk := piece[t.Pos.Offset]
 	id := p.idents.new()
-	*id = ast.Ident{NamePos: tk.Pos, Name: p.text(tk)}
+	id.NamePos, id.Name = tk.Pos, p.text(tk)
 	return id
 }
 
@@ -357,22 +470,53 @@ func (p *parser) label(piece []token.Token, t *lexer.Token) *ast.String {
 	}
 	tk := piece[t.Pos.Offset]
 	raw := p.text(tk)
-	return &ast.String{ValuePos: tk.Pos, Raw: raw, Value: Unquote(raw)}
+	x := p.strs.new()
+	x.ValuePos, x.Raw, x.Value = tk.Pos, raw, Unquote(raw)
+	return x
 }
 
-func (p *parser) quantity(piece []token.Token, q gQuantity) *ast.Quantity {
+func (p *parser) quantity(piece []token.Token, q *gQuantity) *ast.Quantity {
 	tk := piece[q.Num.Pos.Offset]
 	raw := p.text(tk)
+	v := parseNumber(raw)
+	x := p.qtys.new()
+	x.NumPos, x.Raw, x.Value = tk.Pos, raw, v
+	if q.Unit != nil {
+		x.Unit = p.ident(piece, q.Unit)
+	}
+	return x
+}
+
+// parseNumber converts a number as the scanner made it. A short integer ("150", "-4"), the
+// common case, converts directly: up to 15 digits it is exact, as strconv.ParseFloat's result is.
+func parseNumber(raw string) float64 {
+	s, neg := raw, false
+	if s != "" && (s[0] == '-' || s[0] == '+') {
+		s, neg = s[1:], s[0] == '-'
+	}
+	if s != "" && len(s) <= 15 {
+		n := 0
+		for i := 0; i < len(s); i++ {
+			d := s[i] - '0'
+			if d > 9 {
+				return parseFloat(raw)
+			}
+			n = n*10 + int(d)
+		}
+		if neg {
+			return -float64(n)
+		}
+		return float64(n)
+	}
+	return parseFloat(raw)
+}
+
+func parseFloat(raw string) float64 {
 	v, err := strconv.ParseFloat(raw, 64)
 	if err != nil && v == 0 { // not a range error: the scanner only makes valid numbers
 		v = 0
 	}
-	x := p.qtys.new()
-	*x = ast.Quantity{NumPos: tk.Pos, Raw: raw, Value: v}
-	if q.Unit != nil {
-		x.Unit = p.ident(piece, *q.Unit)
-	}
-	return x
+	return v
 }
 
 func (p *parser) tol(piece []token.Token, t *gTol) *ast.Tol {
@@ -380,7 +524,9 @@ func (p *parser) tol(piece []token.Token, t *gTol) *ast.Tol {
 		return nil
 	}
 	op := piece[t.Op.Pos.Offset]
-	return &ast.Tol{OpPos: op.Pos, Op: p.text(op), Amount: p.quantity(piece, t.Amt)}
+	x := p.tols.new()
+	x.OpPos, x.Op, x.Amount = op.Pos, p.text(op), p.quantity(piece, &t.Amt)
+	return x
 }
 
 // Unquote resolves the escapes \" and \\ of a string literal as written (with its quotes; the
@@ -417,33 +563,60 @@ type parseErr struct {
 // participle carry their index in the piece as their offset, which makes a result a template for
 // every piece of its shape.
 func parsePiece[G any](p *parser, prod byte, gp *participle.Parser[G], piece []token.Token, what string) (*G, *ast.Bad) {
-	var kb [64]byte
-	key := append(kb[:0], prod)
-	for _, t := range piece {
-		c := byte(t.Kind)
-		if t.Kind == token.Ident {
-			switch p.text(t) {
-			case "stream":
-				c = 100
-			case "expect":
-				c = 101
-			case "within":
-				c = 102
+	short := len(piece) <= packMax
+	var packed uint64
+	var r any
+	ok := false
+	if short {
+		packed = uint64(prod)
+		for _, t := range piece {
+			packed = packed<<5 | uint64(shapeCode(p.shapeByte(t)))
+		}
+		r, ok = p.shapes.get(packed)
+	}
+	if !ok {
+		var kb [64]byte
+		key := append(kb[:0], prod)
+		for _, t := range piece {
+			key = append(key, p.shapeByte(t))
+		}
+		if r, ok = cache.get(key); !ok {
+			r = runParticiple(p, gp, piece)
+			if len(key) <= maxShapeLen {
+				cache.put(string(key), r)
 			}
 		}
-		key = append(key, c)
-	}
-	r, ok := cache.get(key)
-	if !ok {
-		r = runParticiple(p, gp, piece)
-		if len(key) <= maxShapeLen {
-			cache.put(string(key), r)
+		if short {
+			p.shapes.put(packed, r)
 		}
 	}
 	if e, isErr := r.(*parseErr); isErr {
 		return nil, p.syntaxError(piece, e, what)
 	}
 	return r.(*G), nil
+}
+
+// shapeByte is a token's part of a shape: its kind, or a keyword the grammar spells out.
+func (p *parser) shapeByte(t token.Token) byte {
+	if t.Kind == token.Ident && t.End-t.Pos == 6 { // the length of all three keywords
+		switch p.text(t) {
+		case "stream":
+			return 100
+		case "expect":
+			return 101
+		case "within":
+			return 102
+		}
+	}
+	return byte(t.Kind)
+}
+
+// shapeCode numbers a shape byte from 1 to 21 (kinds, then the three keywords) for packing.
+func shapeCode(c byte) byte {
+	if c >= 100 {
+		return c - 100 + byte(token.PlusMinus) + 2
+	}
+	return c + 1
 }
 
 func runParticiple[G any](p *parser, gp *participle.Parser[G], piece []token.Token) any {

@@ -5,6 +5,7 @@
 package source
 
 import (
+	"bytes"
 	"sort"
 	"unicode/utf16"
 	"unicode/utf8"
@@ -19,18 +20,24 @@ type File struct {
 
 // New indexes src. The File keeps src; the caller must not modify it afterwards.
 func New(name string, src []byte) *File {
-	n := 1
-	for _, c := range src {
-		if c == '\n' {
-			n++
+	lines := make([]int, 1, bytes.Count(src, nl)+1)
+	for i := 0; ; {
+		k := bytes.IndexByte(src[i:], '\n')
+		if k < 0 {
+			break
 		}
+		i += k + 1
+		lines = append(lines, i)
 	}
-	lines := make([]int, 1, n)
-	for i, c := range src {
-		if c == '\n' {
-			lines = append(lines, i+1)
-		}
-	}
+	return &File{Name: name, Src: src, lines: lines}
+}
+
+var nl = []byte{'\n'}
+
+// NewLines is New for a caller that has found the line starts already (the parser, whose
+// scanner makes a token of every "\n"): lines[0] is 0, then the offset just after each "\n" of
+// src, in order. The File keeps both.
+func NewLines(name string, src []byte, lines []int) *File {
 	return &File{Name: name, Src: src, lines: lines}
 }
 

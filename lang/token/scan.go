@@ -1,6 +1,7 @@
 package token
 
 import (
+	"strings"
 	"unicode"
 	"unicode/utf8"
 )
@@ -20,9 +21,21 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 	for i < len(src) {
 		c := src[i]
 		start := i
+		if ascii[c]&identStart != 0 { // most tokens are names: straight to them
+			tok := wordToken(src, i)
+			toks = append(toks, tok)
+			i = tok.End
+			continue
+		}
+		if isDigit(c) { // then numbers
+			i = scanNumber(src, i)
+			toks = append(toks, Token{Number, start, i})
+			continue
+		}
 		switch {
-		case c == ' ' || c == '\t' || c == '\r' || c == '\f' || c == '\v':
-			i++
+		case isBlank(c):
+			for i++; i < len(src) && isBlank(src[i]); i++ {
+			}
 			continue
 		case c == '\n':
 			i++
@@ -121,19 +134,40 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 			errs = append(errs, Error{start, i, "unexpected control character"})
 			continue
 		}
-		end, ident := scanWord(src, i)
-		k := Word
-		if ident {
-			k = Ident
-		}
-		toks = append(toks, Token{k, start, end})
-		i = end
+		tok := wordToken(src, i)
+		toks = append(toks, tok)
+		i = tok.End
 	}
 	toks = append(toks, Token{EOF, len(src), len(src)})
 	return toks, errs
 }
 
 func isDigit(c byte) bool { return '0' <= c && c <= '9' }
+
+func isBlank(c byte) bool { return c == ' ' || c == '\t' || c == '\r' || c == '\f' || c == '\v' }
+
+// Classes of ASCII bytes, for the scanner's fast paths.
+const (
+	identStart = 1 << iota // a letter or "_"
+	identPart              // a letter, digit, "_" or "-"
+	wordEnd                // ends a word wherever it stands: space, punctuation, control
+)
+
+var ascii = func() (t [256]uint8) {
+	for c := 0; c < 0x80; c++ {
+		letter := 'a' <= c && c <= 'z' || 'A' <= c && c <= 'Z' || c == '_'
+		if letter {
+			t[c] |= identStart | identPart
+		}
+		if '0' <= c && c <= '9' || c == '-' {
+			t[c] |= identPart
+		}
+		if c < ' ' || c == 0x7F || strings.IndexByte(" {},;#\"=<>", byte(c)) >= 0 {
+			t[c] |= wordEnd
+		}
+	}
+	return t
+}()
 
 // startsNumber reports whether a '.', '+' or '-' at i begins a number: -4.5, +3, .5, -.5
 func startsNumber(src []byte, i int) bool {
@@ -198,7 +232,27 @@ func scanString(src []byte, i int) (int, bool) {
 // scanWord scans a run of characters that are not spaces, punctuation of the notation, or
 // control characters, and reports whether the run is an identifier. Inside parentheses spaces
 // belong to the word, so that "kJ/(kg K)" is one unit spelling.
+// wordToken scans the name or word starting at i.
+func wordToken(src []byte, i int) Token {
+	end, ident := scanWord(src, i)
+	if ident {
+		return Token{Ident, i, end}
+	}
+	return Token{Word, i, end}
+}
+
 func scanWord(src []byte, i int) (end int, ident bool) {
+	// Fast path: an ASCII identifier ending at a space, punctuation or the end of the file, which
+	// the general loop below would scan to the same end.
+	if ascii[src[i]]&identStart != 0 {
+		j := i + 1
+		for j < len(src) && ascii[src[j]]&identPart != 0 {
+			j++
+		}
+		if j == len(src) || ascii[src[j]]&wordEnd != 0 {
+			return j, true
+		}
+	}
 	ident = true
 	depth := 0
 	for n := 0; i < len(src); n++ {

@@ -49,7 +49,7 @@ var Codes = []model.CodeInfo{
 	{Code: CodeEfficiency, Severity: model.Error, Summary: "an isentropic or boiler efficiency is outside 0..1"},
 	{Code: CodeTempCross, Severity: model.Error, Summary: "temperature cross in a counterflow exchanger: the hot side is colder than the cold side at an end"},
 	{Code: CodePumpInlet, Severity: model.Warning, Summary: "a pump inlet is not liquid"},
-	{Code: CodeWetExhaust, Severity: model.Warning, Summary: "a turbine exhaust is wetter than 10 % (common practice, no source)"},
+	{Code: CodeWetExhaust, Severity: model.Warning, Summary: "a turbine exhaust has more than 10 % moisture (common practice, no source)"},
 	{Code: CodeStructure, Severity: model.Error, Summary: "the model cannot be turned into equations (a port naming no stream, an unsupported fluid)"},
 	{Code: CodeTimeout, Severity: model.Error, Summary: "solving stopped at the time limit or on cancellation"},
 

@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"hmb/thermo/model"
+	"hmb/thermo/units"
 )
 
 type streams = []*model.Stream
@@ -116,7 +117,7 @@ func TestDiagnostics(t *testing.T) {
 				return mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6, tt, 523.15)}, unit("V1", "valve", ports("in S1", "out S2")))
 			},
 			code: CodeNotClosed, sev: model.Error, at: unitAt("V1"),
-			contains: []string{"energy balance of valve V1 does not close", "given S1 T", "given S2 T"},
+			contains: []string{"energy balance of valve V1 does not close", "of the largest enthalpy change across the unit", "given S1 T", "given S2 T"},
 			related:  []func(*model.Model) model.Span{givenAt("S1", tt), givenAt("S2", tt)},
 		},
 		{
@@ -134,7 +135,7 @@ func TestDiagnostics(t *testing.T) {
 				return mk(t, streams{strm("S1", flow, 2, pp, 1e6, tt, 400, xx, 0.5)})
 			},
 			code: CodeStateInconsistent, sev: model.Error, at: givenAt("S1", tt),
-			contains: []string{"inconsistent", "saturation temperature at 1000.0 kPa is 179.89 C"},
+			contains: []string{"inconsistent", "saturation temperature at 1000 kPa is 179.89 C"},
 			related:  []func(*model.Model) model.Span{givenAt("S1", pp), givenAt("S1", xx)},
 		},
 		{
@@ -143,7 +144,7 @@ func TestDiagnostics(t *testing.T) {
 				return mk(t, streams{strm("S1", flow, 2, pp, 1e6, tt, 453.0356)})
 			},
 			code: CodeStateAmbiguous, sev: model.Error, at: givenAt("S1", tt),
-			contains: []string{"is the saturation temperature at 1000.0 kPa", "give the quality x"},
+			contains: []string{"is the saturation temperature at 1000 kPa", "give the quality x"},
 			related:  []func(*model.Model) model.Span{givenAt("S1", pp)},
 		},
 		{
@@ -154,7 +155,7 @@ func TestDiagnostics(t *testing.T) {
 					unit("H1", "heater", ports("in S1", "out S2"), "duty", 2e6, "dp", 20e3))
 			},
 			code: CodeStateAmbiguous, sev: model.Error, at: givenAt("S2", tt),
-			contains: []string{"S2: T 150.30 C is the saturation temperature at its solved pressure 480.00 kPa", "give the quality x"},
+			contains: []string{"S2: T 150.3 C is the saturation temperature at its solved pressure 480.00 kPa", "give the quality x"},
 		},
 		{
 			name: "negative entropy generation: throttling up in pressure",
@@ -206,7 +207,7 @@ func TestDiagnostics(t *testing.T) {
 				return mk(t, streams{strm("S1", flow, 2, pp, 0.1e6, xx, 0.5), strm("S2", pp, 1e6)}, unit("P", "pump", ports("in S1", "out S2"), "efficiency", 0.7))
 			},
 			code: CodePumpInlet, sev: model.Warning, at: unitAt("P"),
-			contains: []string{"inlet S1 is saturated mixture, not liquid"},
+			contains: []string{"inlet S1 is a saturated mixture, not liquid"},
 		},
 		{
 			name: "turbine exhaust wetter than 10 %",
@@ -214,7 +215,8 @@ func TestDiagnostics(t *testing.T) {
 				return mk(t, streams{strm("S1", flow, 2, pp, 6e6, tt, 623.15), strm("S2", pp, 10e3)}, unit("T", "turbine", ports("in S1", "out S2"), "efficiency", 0.8))
 			},
 			code: CodeWetExhaust, sev: model.Warning, at: unitAt("T"),
-			contains: []string{"exhaust S2 has quality 0.8450"},
+			// 1 - 0.8450 = 15.5 % moisture.
+			contains: []string{"exhaust S2 has 15.5 % moisture, above the usual 10 % limit (common practice, no source)"},
 		},
 		{
 			// 330 K at 1 MPa lies below Tsat(0.2 MPa) = 393.36 K (python3-iapws: W(P=0.2,x=0).T).
@@ -261,7 +263,176 @@ func TestDiagnostics(t *testing.T) {
 				return m
 			},
 			code: CodeExpectFailed, sev: model.Error, at: func(*model.Model) model.Span { return model.Span{Start: 7000, End: 7010} },
-			contains: []string{"S2 T is 280.47 C, expected 286.85 C ± 1.0000 dK"},
+			contains: []string{"S2 T is 280.47 C, expected 286.85 C ± 1 C"},
+		},
+		{
+			// Tsat(0.48 MPa) = 423.454515 K (python3-iapws: W(P=0.48,x=0).T); 423.45 K is 0.0045 K
+			// from it, inside the 0.01 K window that a T given beside a given p also gets.
+			name: "T within 0.01 K of saturation at a pressure a unit fixes",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", pp, 0.5e6, tt, 293.15), strm("S2", tt, 423.45)},
+					unit("H1", "heater", ports("in S1", "out S2"), "duty", 2e6, "dp", 20e3))
+			},
+			code: CodeStateAmbiguous, sev: model.Error, at: givenAt("S2", tt),
+			contains: []string{"is the saturation temperature at its solved pressure 480.00 kPa"},
+		},
+		{
+			// Tsat(1 MPa) = 453.0356 K (python3-iapws): 453.0 K is 0.036 K off, inside its own ± 0.1 K.
+			name: "T within its stated tolerance of saturation",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 2, pp, 1e6, tt, 453.0)})
+				m.Streams[0].Given[tt].Tol = 0.1
+				return m
+			},
+			code: CodeStateAmbiguous, sev: model.Error, at: givenAt("S1", tt),
+			contains: []string{"is the saturation temperature at 1000 kPa"},
+		},
+		{
+			// 150 MPa is above the 100 MPa limit of IAPWS R7-97(2012), Sec. 4.
+			name: "pressure outside IF97 reads in the unit written",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 1, pp, 150e6, tt, 573.15)})
+				m.Streams[0].Given[pp].Unit = "MPa"
+				return m
+			},
+			code: CodeOutsideIF97, sev: model.Error, at: givenAt("S1", pp),
+			contains: []string{"S1: pressure 150 MPa is outside IAPWS-IF97 (above 0 MPa, up to 100 MPa)"},
+		},
+		{
+			// 273.15 K and 2273.15 K (IAPWS R7-97(2012), Sec. 4) are 32 F and 3632 F.
+			name: "temperature range in F",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 1, pp, 1e6, tt, 2500)})
+				m.Display = units.US
+				m.Streams[0].Given[tt].Unit = "F"
+				return m
+			},
+			code: CodeOutsideIF97, sev: model.Error, at: givenAt("S1", tt),
+			contains: []string{"temperature 4040.3 F is outside IAPWS-IF97 (32 F to 3632 F)"},
+		},
+		{
+			// Tc = 647.096 K = 373.946 C (IAPWS R7-97(2012), Eq. 1).
+			name: "quality given above the critical temperature names it",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 1, tt, 653.15, xx, 0.5)})
+				m.Streams[0].Given[tt].Unit = "C"
+				return m
+			},
+			code: CodeNoDome, sev: model.Error, at: givenAt("S1", xx),
+			contains: []string{"quality given at 380 C, at or above the critical temperature 373.95 C"},
+			related:  []func(*model.Model) model.Span{givenAt("S1", tt)},
+		},
+		{
+			// At 14.7 psia (0.1013529 MPa) the highest IF97 enthalpy, at 2273.15 K, is 7376.955 kJ/kg
+			// = 3171.52 Btu/lbm (python3-iapws: W(P=0.1013529,T=2273.15).h / 2.326).
+			name: "given enthalpy beyond IF97: at the given, in the file's units, once",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 0.126, pp, 14.7*6894.757293168, hh, 5000*2326.0), strm("S2")},
+					unit("V1", "valve", ports("in S1", "out S2"), "dp", 6894.757293168))
+				m.Display = units.US
+				m.Streams[0].Given[pp].Unit = "psia"
+				m.Streams[0].Given[hh].Unit = "Btu/lbm"
+				return m
+			},
+			code: CodeOutsideIF97, sev: model.Error, at: givenAt("S1", hh),
+			contains: []string{"S1: h 5000 Btu/lbm is above the IAPWS-IF97 limit 3171.5 Btu/lbm at p 14.7 psia"},
+			related:  []func(*model.Model) model.Span{streamAt("S2")},
+		},
+		{
+			// 1 kg/s of 1 MPa 300 C steam (h = 3051.7 kJ/kg) given 5 MW more: 8051.7 kJ/kg, above
+			// the 7376.7 kJ/kg IF97 reaches at 1 MPa and 2273.15 K (python3-iapws:
+			// W(P=1,T=573.15).h, W(P=1,T=2273.15).h).
+			name: "solved enthalpy beyond IF97 names the equation that made it",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 1, pp, 1e6, tt, 573.15), strm("S2")},
+					unit("H1", "heater", ports("in S1", "out S2"), "duty", 5e6))
+			},
+			code: CodeOutsideIF97, sev: model.Error, at: streamAt("S2"),
+			contains: []string{"S2: h 8051.7 kJ/kg (from the energy balance of heater H1) is above the IAPWS-IF97 limit 7376.7 kJ/kg at p 1000.0 kPa"},
+			related:  []func(*model.Model) model.Span{unitAt("H1")},
+		},
+		{
+			// h(1 MPa, 200 C) = 2828.27 kJ/kg (python3-iapws: W(P=1,T=473.15).h); steam at that
+			// enthalpy is above 100 C at every pressure.
+			name: "no pressure meets an outlet T at the enthalpy a valve keeps",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 0.5, pp, 1e6, tt, 473.15), strm("S2", tt, 373.15)},
+					unit("V1", "valve", ports("in S1", "out S2")))
+				m.Streams[1].Given[tt].Unit = "C"
+				return m
+			},
+			code: CodeNoConvergence, sev: model.Error, at: givenAt("S2", tt),
+			contains: []string{"S2: no pressure gives T 100 C at the enthalpy 2828.3 kJ/kg (from the energy balance of valve V1)"},
+			related:  []func(*model.Model) model.Span{unitAt("V1")},
+		},
+		{
+			// At 100 C the entropy of water is above 1.2373 kJ/(kg K) at every pressure up to the
+			// 100 MPa of IF97 (python3-iapws: W(P=100,T=373.15).s), so s 1 kJ/(kg K) is out of reach.
+			name: "two givens of one stream that no state has together",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 1, tt, 373.15, ss, 1000)})
+				m.Streams[0].Given[tt].Unit = "C"
+				m.Streams[0].Given[ss].Unit = "kJ/(kg K)"
+				return m
+			},
+			code: CodeNoConvergence, sev: model.Error, at: givenAt("S1", ss),
+			related:  []func(*model.Model) model.Span{givenAt("S1", tt)},
+			contains: []string{"S1: no state of water has", "T 100 C", "s 1 kJ/(kg K)"},
+		},
+		{
+			// 3 kg/s of water at 4 bar from 60 C to 85 C takes 314.22 kW (python3-iapws:
+			// 3 (W(P=0.4,T=358.15).h - W(P=0.4,T=333.15).h)); 25.78 kW off 340 kW is 7.58 %.
+			name: "energy closure sets the given duty against the implied one",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 3, pp, 0.4e6, tt, 333.15), strm("S2", pp, 0.4e6, tt, 358.15)},
+					unit("H1", "heater", ports("in S1", "out S2"), "duty", 340e3))
+				m.Units[0].Params["duty"].Unit = "kW"
+				return m
+			},
+			code: CodeNotClosed, sev: model.Error, at: unitAt("H1"),
+			contains: []string{"energy balance of heater H1 does not close: duty 340 kW given, the stream states imply 314.22 kW (7.58 %)"},
+		},
+		{
+			name: "a duty rejected as not finite is not asked for again",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 1, pp, 0.4e6, tt, 333.15), strm("S2")},
+					unit("H1", "heater", ports("in S1", "out S2"), "duty", math.Inf(1)))
+			},
+			code: CodeStructure, sev: model.Error, at: paramAt("H1", "duty"),
+			contains: []string{"heater H1 duty is not a finite number"},
+			absent:   []string{CodeUnderSpecified},
+		},
+		{
+			name: "a rejected stream given brings no under-specification after it",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("S1", flow, 1, pp, 150e6, tt, 573.15), strm("S2", pp, 1e5, tt, 2800)},
+					unit("C1", "cooler", ports("in S1", "out S2")))
+			},
+			code: CodeOutsideIF97, sev: model.Error, at: givenAt("S1", pp),
+			absent: []string{CodeUnderSpecified},
+		},
+		{
+			// 2 kg/s is 7.2 t/h; 0.5 t/h is 0.13889 kg/s.
+			name: "expectation in the unit written",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+				m.Expects = append(m.Expects, &model.Expect{Stream: 0, Unit: -1, Prop: "flow", Op: model.Lt, Value: 0.5 / 3.6, Spelling: "t/h", Span: model.Span{Start: 7000, End: 7010}})
+				return m
+			},
+			code: CodeExpectFailed, sev: model.Error, at: func(*model.Model) model.Span { return model.Span{Start: 7000, End: 7010} },
+			contains: []string{"S1 flow is 7.2000 t/h, expected < 0.5 t/h"},
+		},
+		{
+			// Solved T2 = 553.622376 K = 536.85 F (python3-iapws, as above); 2 K is 3.6 F.
+			name: "expectation tolerance in the unit written",
+			m: func(t *testing.T) *model.Model {
+				m := mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2", pp, 0.5e6)}, unit("V1", "valve", ports("in S1", "out S2")))
+				m.Display = units.US
+				m.Expects = append(m.Expects, &model.Expect{Stream: 1, Unit: -1, Prop: "T", Op: model.Eq, Value: 573.15, Tol: 2, Spelling: "F", Span: model.Span{Start: 7000, End: 7010}})
+				return m
+			},
+			code: CodeExpectFailed, sev: model.Error, at: func(*model.Model) model.Span { return model.Span{Start: 7000, End: 7010} },
+			contains: []string{"S2 T is 536.85 F, expected 572 F ± 3.6 F"},
 		},
 		{
 			name: "expectation on an unsolved value",
@@ -420,5 +591,47 @@ func TestSystemAtSolution(t *testing.T) {
 	}
 	if n != want {
 		t.Errorf("%d Jacobian entries, want %d", n, want)
+	}
+}
+
+// TestRejectedGivenShowsNoState: a stream whose given was rejected shows no state, even when the
+// rest fixes its p and h (here the cooler carries the outlet's 1 bar back to the inlet whose
+// 150 MPa, above the 100 MPa of IAPWS R7-97(2012) Sec. 4, was rejected); a stream after a state
+// error is still solved from what was kept.
+func TestRejectedGivenShowsNoState(t *testing.T) {
+	m := mk(t, streams{strm("HIGH", flow, 1, pp, 150e6, tt, 573.15), strm("LOW", pp, 1e5, tt, 373.15)},
+		unit("C1", "cooler", ports("in HIGH", "out LOW")))
+	r := solveModel(t, m)
+	if r.Streams[0].HasState || r.Streams[0].Solved {
+		t.Errorf("HIGH: HasState %v, Solved %v; want no state after its pressure was rejected (p shown %g Pa)",
+			r.Streams[0].HasState, r.Streams[0].Solved, r.Streams[0].State.P)
+	}
+	if r.Streams[0].M != 1 {
+		t.Errorf("HIGH flow %g, want the given 1 kg/s", r.Streams[0].M)
+	}
+	// Tsat(0.1 MPa) = 372.756 K (python3-iapws: W(P=0.1,x=0).T): 373.15 K at 1 bar is vapour.
+	if !r.Streams[1].HasState || math.Abs(r.Streams[1].State.T-373.15) > 1e-6 {
+		t.Errorf("LOW: HasState %v, T %g; want its own givens solved", r.Streams[1].HasState, r.Streams[1].State.T)
+	}
+}
+
+// TestEnergyClosureAgainstDuty: the closure of an energy balance is taken against the duty, not
+// the total enthalpy flow, which depends on the enthalpy datum. 3 kg/s of water at 4 bar from
+// 60 C to 85 C takes 314.2231 kW (python3-iapws: 3 (W(P=0.4,T=358.15).h - W(P=0.4,T=333.15).h));
+// against a given 320 kW the closure is (320 - 314.2231) / 320 = 1.805 %. Against the total
+// inflow (3 W(P=0.4,T=333.15).h + 320 kW = 1074.4 kW) it would read 0.54 %.
+func TestEnergyClosureAgainstDuty(t *testing.T) {
+	m := mk(t, streams{strm("S1", flow, 3, pp, 0.4e6, tt, 333.15), strm("S2", pp, 0.4e6, tt, 358.15)},
+		unit("H1", "heater", ports("in S1", "out S2"), "duty", 320e3))
+	m.Tolerance = 0.05
+	r := solveModel(t, m)
+	want := (320 - 314.2231) / 320
+	if got := r.Units[0].EnergyClosure; math.Abs(got-want) > 1e-5 {
+		t.Errorf("energy closure %.6f, want %.6f", got, want)
+	}
+	d := findDiag(r, CodeClosure)
+	if d == nil || !strings.Contains(d.Message, "duty 320 kW given, the stream states imply 314.22 kW (1.81 %)") {
+		logDiags(t, r)
+		t.Errorf("no B504 setting the given duty against the implied one")
 	}
 }

@@ -44,20 +44,28 @@ func (s *solveRun) expectations() {
 		if pass {
 			continue
 		}
+		// Values and tolerances read in the unit the user wrote the expectation in.
+		sp := ex.Spelling
 		show := func(v float64) string {
 			if dim == sgenDim {
-				return s.f.sgen(v)
+				return s.f.sgenIn(v, sp, false)
 			}
-			return s.f.q(dim, v)
+			return s.f.writtenQ(dim, v, sp)
 		}
-		want := ex.Op.String() + " " + show(ex.Value)
+		target := func(v float64) string {
+			if dim == sgenDim {
+				return s.f.sgenIn(v, sp, true)
+			}
+			return s.f.written(dim, v, sp)
+		}
+		want := ex.Op.String() + " " + target(ex.Value)
 		if ex.Op == model.Eq {
-			want = show(ex.Value)
+			want = target(ex.Value)
 			if ex.Tol > 0 {
 				if dim == sgenDim {
-					want += " ± " + s.f.sgen(ex.Tol)
+					want += " ± " + s.f.sgenIn(ex.Tol, sp, true)
 				} else {
-					want += " ± " + s.f.dq(dim, ex.Tol)
+					want += " ± " + s.f.writtenDelta(dim, ex.Tol, sp)
 				}
 			}
 		}

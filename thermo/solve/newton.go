@@ -14,16 +14,17 @@ const (
 	maxHalvings = 30
 )
 
-// blockError says why a block was not solved.
+// blockError says why a block was not solved. blockFailed words it for the engineer.
 type blockError struct {
 	reason   string
-	prop     error // the property library's error, when that was the cause
-	singular bool  // the Jacobian was singular: the block's equations do not fix its unknowns
+	prop     error   // the property library's error, when that was the cause
+	singular bool    // the Jacobian was singular: the block's equations do not fix its unknowns
+	miss     float64 // the worst relative mismatch of the equations at the closest point found; 0 when not known
 }
 
 func (e *blockError) Error() string {
 	if e.prop != nil {
-		return e.reason + ": " + propErr(e.prop)
+		return e.reason + ": " + e.prop.Error()
 	}
 	return e.reason
 }
@@ -120,7 +121,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			return nil
 		}
 		if it >= n.maxIter {
-			return &blockError{reason: fmt.Sprintf("no convergence in %d iterations (scaled residual %.2g)", n.maxIter, norm)}
+			return &blockError{reason: fmt.Sprintf("the values did not settle within %d iterations", n.maxIter), miss: norm}
 		}
 		if n.ctx.Err() != nil {
 			return errTimeout
@@ -143,7 +144,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			dx[i] = -r[i]
 		}
 		if !luSolve(jac, dx, k) {
-			return &blockError{reason: "the equations do not fix the unknowns here (singular Jacobian)", singular: true}
+			return &blockError{reason: "these equations do not fix these values: some of them can change together without upsetting any equation", singular: true}
 		}
 		for j, v := range vars {
 			x0[j] = n.x[v]
@@ -166,7 +167,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			for j, v := range vars {
 				n.x[v] = x0[j]
 			}
-			return &blockError{reason: fmt.Sprintf("no step reduces the residual (scaled residual %.2g)", norm)}
+			return &blockError{reason: "no values satisfy these equations together", miss: norm}
 		}
 	}
 }

@@ -63,7 +63,7 @@ func finishPump(c *unitCalc) {
 	if r := c.s.res.Streams[in[0]]; r.HasState {
 		st := r.State
 		if st.Phase != if97.Liquid && st.Phase != if97.SatLiquid {
-			c.s.diag(model.Warning, CodePumpInlet, c.un.Span, fmt.Sprintf("%s: inlet %s is %s, not liquid; the pump would cavitate",
+			c.s.diag(model.Warning, CodePumpInlet, c.un.Span, fmt.Sprintf("%s: inlet %s is a %s, not liquid; the pump would cavitate",
 				c.name(), c.s.b.sname(in[0]), st.Phase))
 		}
 	}

@@ -11,6 +11,7 @@ import (
 
 	"hmb/thermo/if97"
 	"hmb/thermo/model"
+	"hmb/thermo/units"
 )
 
 // Options bound the work of Solve.
@@ -58,8 +59,11 @@ type UnitResult struct {
 	// Flows through the unit: mass in kg/s; energy in W (sum of m h plus heat and work crossing
 	// the boundary on that side).
 	MassIn, MassOut, EnergyIn, EnergyOut float64
-	// Relative closure |in - out| / max(|in|, |out|) of a balance that was redundant (every term
-	// fixed without it); NaN when the balance was used to solve.
+	// Relative closure of a balance that was redundant (every term fixed without it); NaN when
+	// the balance was used to solve. Mass: |in - out| / max(|in|, |out|). Energy: |in - out|
+	// over the largest term that does not depend on the enthalpy datum (the duty or power, or
+	// the largest enthalpy change across the unit; see energyBalance), so that it reads the same
+	// whatever h = 0 is taken to be.
 	MassClosure, EnergyClosure float64
 }
 
@@ -283,6 +287,28 @@ func contains(s []int, v int) bool {
 
 func (s *solveRun) blockFailed(blk, vars []int, err error) {
 	sys := s.b.sys
+	eq := &sys.Eqs[blk[0]]
+	be, ok := err.(*blockError)
+	if !ok {
+		be = &blockError{reason: err.Error()}
+	}
+	if len(blk) == 1 && eq.Kind == EqGiven && eq.Stream >= 0 && eq.Given != nil {
+		// A given T at a pressure that a unit fixed (not given beside it, which the state checks
+		// catch) can still land on the saturation line.
+		if errors.Is(be.prop, if97.ErrOnSaturation) && eq.Prop == model.T {
+			if pv := sys.StreamVar(eq.Stream, model.P); s.solved[pv] {
+				s.diag(model.Error, CodeStateAmbiguous, eq.Span, fmt.Sprintf("%s: T %s is the saturation temperature at its solved pressure %s; give the quality x (or h) instead of T",
+					s.m.Streams[eq.Stream].Name, s.f.written(units.Temperature, eq.Given.Value, eq.Given.Unit), s.f.q(units.Pressure, s.x[pv])))
+				return
+			}
+		}
+		if s.stateFailed(eq, vars[0], be) {
+			return
+		}
+	}
+	if s.givensFailed(blk, be) {
+		return
+	}
 	var names, labels []string
 	for _, v := range vars {
 		names = append(names, sys.Vars[v].Name)
@@ -295,21 +321,17 @@ func (s *solveRun) blockFailed(blk, vars []int, err error) {
 		}
 	}
 	code := CodeNoConvergence
-	eq := &sys.Eqs[blk[0]]
-	if be, ok := err.(*blockError); ok && be.prop != nil && len(blk) == 1 && eq.Kind == EqGiven {
+	if be.prop != nil && len(blk) == 1 && eq.Kind == EqGiven {
 		code = CodeOutsideIF97
-		// A given T at a pressure that a unit fixed (not given beside it, which the state checks
-		// catch) can still land on the saturation line.
-		if errors.Is(be.prop, if97.ErrOnSaturation) && eq.Stream >= 0 && eq.Prop == model.T {
-			if pv := sys.StreamVar(eq.Stream, model.P); s.solved[pv] {
-				s.diag(model.Error, CodeStateAmbiguous, eq.Span, fmt.Sprintf("%s: T %s is the saturation temperature at its solved pressure %s; give the quality x (or h) instead of T",
-					s.m.Streams[eq.Stream].Name, s.f.q(model.T.Dim(), eq.Given.Value), s.f.q(model.P.Dim(), s.x[pv])))
-				return
-			}
-		}
 	}
-	hint := ""
-	if be, ok := err.(*blockError); ok && be.singular {
+	why := be.reason
+	if be.prop != nil {
+		why += ": " + s.f.propErr(be.prop)
+	}
+	if be.miss > 0 && finite(be.miss) {
+		why += fmt.Sprintf(" (the closest values found still miss by %s)", pct(be.miss))
+	}
+	if be.singular {
 		// Structurally square but numerically degenerate (a mixer inlet pressure that the lowest-
 		// pressure rule leaves free, two givens that say the same thing): one more given among
 		// the group's unknowns is what usually fixes it.
@@ -322,16 +344,96 @@ func (s *solveRun) blockFailed(blk, vars []int, err error) {
 			}
 		}
 		if len(cands) > 0 {
-			hint = "; the group may be under-specified: giving one of " + strings.Join(cands, ", ") + " may fix it"
+			why += "; the group may be under-specified: giving one of " + strings.Join(cands, ", ") + " may fix it"
 		}
 	}
-	s.diag(model.Error, code, eq.Span, fmt.Sprintf("cannot solve %s from %s: %v%s", andList(names), andList(labels), err, hint), rel...)
+	s.diag(model.Error, code, eq.Span, fmt.Sprintf("cannot solve %s from %s: %s", andList(names), andList(labels), why), rel...)
+}
+
+// stateFailed words the failure of a one-stream block: a given T, s or x that no value of the
+// stream's unknown pressure (or enthalpy) meets at the enthalpy (or pressure) fixed before it.
+// That is the plant-side reading of the failure ("no pressure gives ST2 T 100 C at the enthalpy
+// the valve keeps"), which names the value that could not be met and where the other came from.
+func (s *solveRun) stateFailed(eq *Equation, v int, be *blockError) bool {
+	sys := s.b.sys
+	vr := sys.Vars[v]
+	if vr.Stream != eq.Stream || (vr.Prop != model.P && vr.Prop != model.H) {
+		return false
+	}
+	unknown, other, otherWord := "pressure", sys.StreamVar(eq.Stream, model.H), "enthalpy"
+	if vr.Prop == model.H {
+		unknown, other, otherWord = "enthalpy", sys.StreamVar(eq.Stream, model.P), "pressure"
+	}
+	if !contains(eq.Vars, other) || !s.solved[other] {
+		return false
+	}
+	ov := sys.Vars[other]
+	code := CodeNoConvergence
+	name := s.m.Streams[eq.Stream].Name
+	msg := fmt.Sprintf("%s: no %s gives %s %s at the %s %s (%s)", name, unknown, eq.Prop,
+		s.f.written(eq.Prop.Dim(), eq.Given.Value, eq.Given.Unit), otherWord, s.f.q(ov.Dim, s.x[other]), s.source(other))
+	var le *if97.LimitError
+	if be.prop != nil {
+		code = CodeOutsideIF97
+		if errors.As(be.prop, &le) {
+			msg += ": " + s.f.limit(le)
+		}
+	}
+	var rel []model.Related
+	if e := s.st.matchVar[other]; e >= 0 && sys.Eqs[e].Span != eq.Span {
+		rel = append(rel, related(sys.Eqs[e].Span, sys.Eqs[e].Label+" fixes "+ov.Name))
+	}
+	s.diag(model.Error, code, eq.Span, msg, rel...)
+	return true
+}
+
+// givensFailed words the failure of a block made only of one stream's givens (T and s, say):
+// no state of water has them together.
+func (s *solveRun) givensFailed(blk []int, be *blockError) bool {
+	sys := s.b.sys
+	st := sys.Eqs[blk[0]].Stream
+	if len(blk) < 2 || st < 0 {
+		return false
+	}
+	var parts []string
+	var rel []model.Related
+	for k, e := range blk {
+		eq := &sys.Eqs[e]
+		if eq.Kind != EqGiven || eq.Stream != st || eq.Given == nil {
+			return false
+		}
+		parts = append(parts, eq.Prop.String()+" "+s.f.written(eq.Prop.Dim(), eq.Given.Value, eq.Given.Unit))
+		if k > 0 {
+			rel = append(rel, related(eq.Span, eq.Prop.String()+" given here"))
+		}
+	}
+	msg := fmt.Sprintf("%s: no state of water has %s", s.m.Streams[st].Name, andList(parts))
+	if be.prop != nil {
+		msg += ": " + s.f.propErr(be.prop)
+	}
+	s.diag(model.Error, CodeNoConvergence, sys.Eqs[blk[0]].Span, msg, rel...)
+	return true
+}
+
+// source says which given or equation fixed a solved unknown, for a message: "given S1 p",
+// "from the energy balance of valve V1".
+func (s *solveRun) source(v int) string {
+	e := s.st.matchVar[v]
+	if e < 0 {
+		return "not fixed"
+	}
+	eq := &s.b.sys.Eqs[e]
+	if eq.Kind == EqGiven {
+		return eq.Label
+	}
+	return "from the " + eq.Label
 }
 
 // streamResults evaluates each stream's state from its solved p and h.
 func (s *solveRun) streamResults() {
 	sys := s.b.sys
 	s.res.Streams = make([]StreamResult, len(s.m.Streams))
+	var outside []outsideState
 	for i, st := range s.m.Streams {
 		r := &s.res.Streams[i]
 		r.M = math.NaN()
@@ -345,15 +447,123 @@ func (s *solveRun) streamResults() {
 		if !s.solved[pv] || !s.solved[hv] {
 			continue
 		}
+		if s.b.blocked[i] {
+			// A given of this stream was rejected: what the rest fixes is not the state the file
+			// describes (a rejected pressure would show the one a unit carries back), so the
+			// stream shows no state; its error is reported where the given is written.
+			continue
+		}
 		state, err := streamState(s.x[pv], s.x[hv])
 		if err != nil {
-			s.diag(model.Error, CodeOutsideIF97, st.Span, fmt.Sprintf("%s: solved p %s and h %s are outside IAPWS-IF97: %s",
-				st.Name, s.f.q(model.P.Dim(), s.x[pv]), s.f.q(model.H.Dim(), s.x[hv]), propErr(err)))
+			outside = append(outside, outsideState{stream: i, err: err})
 			continue
 		}
 		r.State, r.HasState = state, true
 		r.Solved = !math.IsNaN(r.M)
 	}
+	s.reportOutside(outside)
+}
+
+// outsideState is a stream whose solved p and h IAPWS-IF97 cannot evaluate.
+type outsideState struct {
+	stream int
+	err    error
+	origin int // index into s.diags of the error that reports it, or of its origin's
+}
+
+// reportOutside reports states outside IAPWS-IF97 once, at their origin. A stream whose p or h
+// was fixed by an equation that reads another such stream (the outlet of a valve after an
+// impossible inlet) only repeats that error; it is named on the origin's error instead. Streams
+// are taken in solving order, so an origin is always met before what follows from it.
+func (s *solveRun) reportOutside(out []outsideState) {
+	if len(out) == 0 {
+		return
+	}
+	sys := s.b.sys
+	blockOf := make(map[int]int)
+	for bi, blk := range s.st.blocks {
+		for _, e := range blk {
+			blockOf[s.st.matchEq[e]] = bi
+		}
+	}
+	order := func(o outsideState) int {
+		return max(blockOf[sys.StreamVar(o.stream, model.P)], blockOf[sys.StreamVar(o.stream, model.H)])
+	}
+	sort.SliceStable(out, func(i, j int) bool { return order(out[i]) < order(out[j]) })
+	seen := map[int]int{} // stream -> index into out
+	for k := range out {
+		o := &out[k]
+		i := o.stream
+		from := -1
+		for _, prop := range []model.Prop{model.P, model.H} {
+			e := s.st.matchVar[sys.StreamVar(i, prop)]
+			if e < 0 {
+				continue
+			}
+			for _, v := range sys.Eqs[e].Vars {
+				if st := sys.Vars[v].Stream; st >= 0 && st != i {
+					if j, ok := seen[st]; ok && from < 0 {
+						from = j
+					}
+				}
+			}
+		}
+		seen[i] = k
+		if from >= 0 {
+			o.origin = out[from].origin
+			d := &s.diags[o.origin]
+			d.Related = append(d.Related, related(s.m.Streams[i].Span, s.m.Streams[i].Name+" follows from this state and is not solved either"))
+			continue
+		}
+		o.origin = len(s.diags)
+		s.outsideAt(i, o.err)
+	}
+}
+
+// outsideAt reports stream i's state outside IAPWS-IF97: at the given that is out of range when
+// it is one of the stream's own, else at the stream, naming the equation that produced the value.
+func (s *solveRun) outsideAt(i int, err error) {
+	sys := s.b.sys
+	st := s.m.Streams[i]
+	pv, hv := sys.StreamVar(i, model.P), sys.StreamVar(i, model.H)
+	var le *if97.LimitError
+	if !errors.As(err, &le) || (le.Quantity != "pressure" && le.Quantity != "enthalpy") || !finite(le.Value) {
+		s.diag(model.Error, CodeOutsideIF97, st.Span, fmt.Sprintf("%s: p %s (%s) and h %s (%s) are outside IAPWS-IF97: %s",
+			st.Name, s.f.q(units.Pressure, s.x[pv]), s.source(pv), s.f.q(units.SpecificEnergy, s.x[hv]), s.source(hv), s.f.propErr(err)))
+		return
+	}
+	prop, v := model.H, hv
+	if le.Quantity == "pressure" {
+		prop, v = model.P, pv
+	}
+	dim := prop.Dim()
+	side, bound := "above", le.Max
+	if le.Value <= le.Min {
+		side, bound = "below", le.Min
+	}
+	span, what := st.Span, s.f.q(dim, s.x[v])+" ("+s.source(v)+")"
+	var rel []model.Related
+	g := st.Given[prop]
+	if e := s.st.matchVar[v]; e >= 0 {
+		eq := &sys.Eqs[e]
+		if eq.Kind == EqGiven && eq.Stream == i && eq.Prop == prop && g != nil {
+			span, what = g.Span, s.f.written(dim, g.Value, g.Unit)
+		} else {
+			rel = append(rel, related(eq.Span, eq.Label+" fixes "+sys.Vars[v].Name))
+		}
+	}
+	lim := s.f.q(dim, bound)
+	if g != nil && span == g.Span {
+		lim = s.f.written(dim, bound, g.Unit)
+	}
+	at := ""
+	if prop == model.H {
+		at = " at p " + s.f.q(units.Pressure, s.x[pv])
+		if gp := st.Given[model.P]; gp != nil && s.st.matchVar[pv] >= 0 && sys.Eqs[s.st.matchVar[pv]].Given == gp {
+			at = " at p " + s.f.written(units.Pressure, gp.Value, gp.Unit)
+		}
+	}
+	s.diag(model.Error, CodeOutsideIF97, span, fmt.Sprintf("%s: %s %s is %s the IAPWS-IF97 limit %s%s", st.Name, prop, what, side, lim, at), rel...)
 }
 
 // underSpecified reports unknowns no equation fixes, grouped by the set of givens that would fix
@@ -374,19 +584,29 @@ func (s *solveRun) underSpecified() {
 			}
 		}
 	}
+	// An unknown whose given was rejected (a stream's bad T, a duty that is not a finite number)
+	// is quiet: the rejection is the error, and "specify one of: QC1 duty" beside it would ask
+	// for what the file already tries to say.
+	quietVar := func(v int) bool {
+		if st := sys.Vars[v].Stream; st >= 0 && quiet[st] {
+			return true
+		}
+		return s.b.rejected[v]
+	}
 	mark := make([]int, len(sys.Vars))
 	group := make([]int, len(sys.Vars)) // unknown -> group number + 1 of the search that reached it
 	stamp := 0
 	type grp struct {
 		missing []int
 		cands   []int
+		quiet   bool // the group reaches an unknown whose given was rejected: a follow-on
 	}
 	var groups []*grp
 	for v := range sys.Vars {
 		if s.st.matchVar[v] >= 0 {
 			continue
 		}
-		if st := sys.Vars[v].Stream; st >= 0 && quiet[st] {
+		if quietVar(v) {
 			continue
 		}
 		if g := group[v]; g > 0 {
@@ -401,9 +621,15 @@ func (s *solveRun) underSpecified() {
 			if group[w] == 0 {
 				group[w] = len(groups)
 			}
+			// Fixing the rejected given would very likely fix this unknown too: the group is
+			// a consequence of that error, not a separate one.
+			g.quiet = g.quiet || quietVar(w)
 		}
 	}
 	for _, g := range groups {
+		if g.quiet {
+			continue
+		}
 		first := sys.Vars[g.missing[0]]
 		span := model.Span{}
 		if first.Stream >= 0 {

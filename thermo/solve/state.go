@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"hmb/thermo/if97"
@@ -22,6 +23,11 @@ const (
 // satTolMin is the least temperature difference from saturation that tells a (p, T) pair off the
 // line: a few hundredths of a kelvin is the resolution of the tables people copy T and p from.
 const satTolMin = 0.01
+
+// satWindow is how far a stated T may lie from Tsat(p) and still be read as the saturation
+// temperature: the ± the user stated, at least satTolMin. The same window serves a T given beside
+// a given p and a T at a pressure a unit fixes, so both are judged alike.
+func satWindow(g *model.Given) float64 { return max(g.Tol, satTolMin) }
 
 // streamGivens checks the givens of stream i as a state, then adds one equation per given kept.
 // A state needs two intensive properties; the flow is the third unknown.
@@ -50,15 +56,16 @@ func (b *builder) streamGivens(i int) {
 	has := func(p model.Prop) bool { return propIn(keep, p) }
 	if has(model.X) && has(model.P) && s.Given[model.P].Value >= pCrit {
 		g := s.Given[model.X]
+		gp := s.Given[model.P]
 		b.diag(model.Error, CodeNoDome, g.Span, fmt.Sprintf("%s: quality given at %s, at or above the critical pressure %s, where water has no two-phase region",
-			name, b.fmt.q(units.Pressure, s.Given[model.P].Value), b.fmt.q(units.Pressure, pCrit)), related(s.Given[model.P].Span, "pressure given here"))
+			name, b.fmt.written(units.Pressure, gp.Value, gp.Unit), b.fmt.written(units.Pressure, pCrit, gp.Unit)), related(gp.Span, "pressure given here"))
 		keep = dropProp(keep, model.X)
 		b.blocked[i] = true
 	}
-	if has(model.X) && has(model.T) && s.Given[model.T].Value >= 647.096 {
-		g := s.Given[model.X]
-		b.diag(model.Error, CodeNoDome, g.Span, fmt.Sprintf("%s: quality given at %s, at or above the critical temperature, where water has no two-phase region",
-			name, b.fmt.q(units.Temperature, s.Given[model.T].Value)), related(s.Given[model.T].Span, "temperature given here"))
+	if has(model.X) && has(model.T) && s.Given[model.T].Value >= tCrit {
+		g, gt := s.Given[model.X], s.Given[model.T]
+		b.diag(model.Error, CodeNoDome, g.Span, fmt.Sprintf("%s: quality given at %s, at or above the critical temperature %s, where water has no two-phase region",
+			name, b.fmt.written(units.Temperature, gt.Value, gt.Unit), b.fmt.written(units.Temperature, tCrit, gt.Unit)), related(gt.Span, "temperature given here"))
 		keep = dropProp(keep, model.X)
 		b.blocked[i] = true
 	}
@@ -71,10 +78,11 @@ func (b *builder) streamGivens(i int) {
 			keep = dropProp(keep, model.T) // T only repeats what p says: redundant, not a conflict
 			break
 		}
+		pw := b.fmt.written(units.Pressure, gp.Value, gp.Unit)
 		msg := fmt.Sprintf("%s: T %s, p %s and a quality are inconsistent: the saturation temperature at %s is %s",
-			name, b.fmt.q(units.Temperature, gt.Value), b.fmt.q(units.Pressure, gp.Value), b.fmt.q(units.Pressure, gp.Value), b.fmt.q(units.Temperature, ts))
+			name, b.fmt.written(units.Temperature, gt.Value, gt.Unit), pw, pw, b.fmt.writtenQ(units.Temperature, ts, gt.Unit))
 		if err != nil {
-			msg = fmt.Sprintf("%s: T, p and a quality are inconsistent: %s has no saturation temperature", name, b.fmt.q(units.Pressure, gp.Value))
+			msg = fmt.Sprintf("%s: T, p and a quality are inconsistent: %s has no saturation temperature", name, pw)
 		}
 		b.diag(model.Error, CodeStateInconsistent, gt.Span, msg,
 			related(gp.Span, "pressure given here"), related(s.Given[model.X].Span, "quality given here"))
@@ -97,10 +105,10 @@ func (b *builder) streamGivens(i int) {
 		gp, gt := s.Given[model.P], s.Given[model.T]
 		if gp.Value < pCrit {
 			ts, err := if97.Tsat(gp.Value)
-			if err == nil && math.Abs(ts-gt.Value) <= max(gt.Tol, satTolMin) {
+			if err == nil && math.Abs(ts-gt.Value) <= satWindow(gt) {
 				b.diag(model.Error, CodeStateAmbiguous, gt.Span,
 					fmt.Sprintf("%s: T %s is the saturation temperature at %s; give the quality x (or h) instead of T",
-						name, b.fmt.q(units.Temperature, gt.Value), b.fmt.q(units.Pressure, gp.Value)),
+						name, b.fmt.written(units.Temperature, gt.Value, gt.Unit), b.fmt.written(units.Pressure, gp.Value, gp.Unit)),
 					related(gp.Span, "pressure given here"))
 				keep = dropProp(keep, model.T)
 				b.blocked[i] = true
@@ -134,14 +142,17 @@ func (b *builder) givenInRange(i int, p model.Prop, g *model.Given) bool {
 	switch p {
 	case model.P:
 		if g.Value <= 0 || g.Value > pMaxIF97 {
-			b.diag(model.Error, CodeOutsideIF97, g.Span, fmt.Sprintf("%s: pressure %s is outside IAPWS-IF97 (above 0, up to %s)",
-				name, b.fmt.q(units.Pressure, g.Value), b.fmt.q(units.Pressure, pMaxIF97)))
+			// The range reads in the user's unit, made absolute: it starts at zero absolute.
+			u := absolute(b.fmt.unitFor(units.Pressure, g.Unit))
+			b.diag(model.Error, CodeOutsideIF97, g.Span, fmt.Sprintf("%s: pressure %s is outside IAPWS-IF97 (above 0 %s, up to %s)",
+				name, b.fmt.written(units.Pressure, g.Value, g.Unit), u.Symbol(), b.fmt.written(units.Pressure, pMaxIF97, u.Symbol())))
 			return false
 		}
 	case model.T:
 		if g.Value < tMinIF97 || g.Value > tMaxIF97 {
+			u := b.fmt.unitFor(units.Temperature, g.Unit).Symbol()
 			b.diag(model.Error, CodeOutsideIF97, g.Span, fmt.Sprintf("%s: temperature %s is outside IAPWS-IF97 (%s to %s)",
-				name, b.fmt.q(units.Temperature, g.Value), b.fmt.q(units.Temperature, tMinIF97), b.fmt.q(units.Temperature, tMaxIF97)))
+				name, b.fmt.written(units.Temperature, g.Value, g.Unit), b.fmt.written(units.Temperature, tMinIF97, u), b.fmt.written(units.Temperature, tMaxIF97, u)))
 			return false
 		}
 	case model.X:
@@ -185,7 +196,16 @@ func (b *builder) propGiven(i int, p model.Prop, g *model.Given) Equation {
 	switch p {
 	case model.T:
 		of = func(pp, hh float64) (float64, error) { st, err := statePH(pp, hh); return st.T, err }
-		inv = func(pp float64) (float64, error) { st, err := if97.PT(pp, val); return st.H, err }
+		win := satWindow(g)
+		inv = func(pp float64) (float64, error) {
+			if pp < pCrit {
+				if ts, err := if97.Tsat(pp); err == nil && math.Abs(ts-val) <= win {
+					return math.NaN(), if97.ErrOnSaturation
+				}
+			}
+			st, err := if97.PT(pp, val)
+			return st.H, err
+		}
 	case model.S:
 		of = func(pp, hh float64) (float64, error) { st, err := statePH(pp, hh); return st.S, err }
 		inv = func(pp float64) (float64, error) { st, err := if97.PS(pp, val); return st.H, err }
@@ -256,14 +276,57 @@ func andList(s []string) string {
 	return strings.Join(s[:len(s)-1], ", ") + " and " + s[len(s)-1]
 }
 
-// propErr words a property-library error for a message.
-func propErr(err error) string {
+// propErr words a property-library error for a message, in the file's units: the library
+// itself speaks SI (MPa, kJ/kg), which a file in psia and Btu/lbm should not have to read.
+func (f formatter) propErr(err error) string {
 	var le *if97.LimitError
 	switch {
-	case errors.As(err, &le):
-		return le.Error()
 	case err == nil:
 		return ""
+	case errors.As(err, &le):
+		return f.limit(le)
 	}
 	return err.Error()
+}
+
+// limit words an if97.LimitError in display units.
+func (f formatter) limit(le *if97.LimitError) string {
+	dim := units.Dimensionless
+	switch le.Quantity {
+	case "pressure":
+		dim = units.Pressure
+	case "temperature":
+		dim = units.Temperature
+	case "enthalpy":
+		dim = units.SpecificEnergy
+	case "entropy":
+		dim = units.SpecificEntropy
+	}
+	if !finite(le.Value) {
+		return le.Quantity + " is not a finite number"
+	}
+	if le.Quantity == "quality" {
+		return "quality " + f.frac(le.Value) + " is outside 0..1"
+	}
+	side, bound := "above", le.Max
+	if le.Value <= le.Min { // the lower pressure limit 0 is exclusive
+		side, bound = "below", le.Min
+	}
+	msg := fmt.Sprintf("%s %s is %s the IAPWS-IF97 limit %s", le.Quantity, f.q(dim, le.Value), side, f.q(dim, bound))
+	if c := f.cond(le.Cond); c != "" {
+		msg += " " + c
+	}
+	return msg
+}
+
+// cond rewrites the condition of a limit ("at 0.101352932 MPa", "at pressures over 50 MPa") in
+// display units; the library writes pressures in MPa.
+func (f formatter) cond(c string) string {
+	fields := strings.Fields(c)
+	if n := len(fields); n >= 2 && fields[n-1] == "MPa" {
+		if v, err := strconv.ParseFloat(fields[n-2], 64); err == nil {
+			return strings.Join(fields[:n-2], " ") + " " + f.q(units.Pressure, v*1e6)
+		}
+	}
+	return c
 }

@@ -52,6 +52,9 @@ type Equation struct {
 	grad   func(x []float64, g []float64) // d(lhs-rhs)/d(Vars[i]); nil: finite differences
 	direct func(x []float64, v int) (float64, error)
 	floor  float64 // scale below which the residual is not scaled further
+	// energy, set on energy balances, is the largest term of the balance that does not depend on
+	// the enthalpy datum (see energyBalance); closures of energy balances are judged against it.
+	energy func(x []float64) float64
 }
 
 // System is the whole set of unknowns and equations built from a model. It is kept explicit so

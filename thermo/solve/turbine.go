@@ -67,7 +67,7 @@ func finishTurbine(c *unitCalc) {
 	st, _, _ := c.state(out[0])
 	// Exhaust wetter than about 10 % erodes the last-stage blades (common practice, no source).
 	if twoPhase(st) && st.X < 0.9 {
-		c.s.diag(model.Warning, CodeWetExhaust, c.un.Span, fmt.Sprintf("%s: exhaust %s has quality %s, wetter than 10 %%",
-			c.name(), c.s.b.sname(out[0]), c.s.f.frac(st.X)))
+		c.s.diag(model.Warning, CodeWetExhaust, c.un.Span, fmt.Sprintf("%s: exhaust %s has %s %% moisture, above the usual 10 %% limit (common practice, no source)",
+			c.name(), c.s.b.sname(out[0]), units.Format(100*(1-st.X), 3)))
 	}
 }
