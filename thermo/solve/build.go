@@ -282,6 +282,10 @@ func (b *builder) energyBalance(u int, label string, ins, outs []int, extraIn, e
 		// measured from the inlets' mass-weighted mean enthalpy (for a heater, the enthalpy rise
 		// m (h_out - h_in); for a mixer, the heat each inlet gives up or takes). Shifting every h
 		// by a constant leaves all of these unchanged.
+		// A one-in, one-out unit with nothing crossing its boundary (a valve) has no such scale:
+		// its enthalpy change is the mismatch itself, so any error would read 100 %. There the
+		// balance is judged against the inlet's enthalpy flow from the steam-table datum, the
+		// usual check of a throttling calculation.
 		energy: func(x []float64) float64 {
 			var m, mh float64
 			for _, f := range fin {
@@ -301,6 +305,9 @@ func (b *builder) energyBalance(u int, label string, ins, outs []int, extraIn, e
 			}
 			for _, e := range extra {
 				sc = max(sc, math.Abs(e.t.val(x)))
+			}
+			if len(extra) == 0 && len(fin) == 1 && len(fout) == 1 {
+				sc = max(sc, math.Abs(mh))
 			}
 			return sc
 		},
