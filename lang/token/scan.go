@@ -235,6 +235,11 @@ func scanString(src []byte, i int) (int, bool) {
 // wordToken scans the name or word starting at i.
 func wordToken(src []byte, i int) Token {
 	end, ident := scanWord(src, i)
+	// Spaces belong to a word only inside its parentheses ("J/(kg K)"); a parenthesis left open
+	// must not carry the spaces before a comment or the line end into the word.
+	for end > i+1 && isBlank(src[end-1]) {
+		end--
+	}
 	if ident {
 		return Token{Ident, i, end}
 	}
