@@ -5,10 +5,14 @@ import (
 	"encoding/json"
 	"flag"
 	"fmt"
+	"maps"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
+
+	"hmb/thermo/model"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files of the command-line tests")
@@ -242,13 +246,44 @@ func TestUsage(t *testing.T) {
 // TestCodesTable keeps the table of diagnostic codes in README.md equal to the codes hmb
 // reports (-update rewrites the part between the markers).
 func TestCodesTable(t *testing.T) {
-	t.Chdir(filepath.Join("..", ".."))
-	const begin, end = "<!-- codes:begin -->\n", "<!-- codes:end -->\n"
 	var b strings.Builder
 	b.WriteString("| code | severity | meaning |\n|---|---|---|\n")
 	for _, c := range allCodes() {
 		fmt.Fprintf(&b, "| %s | %s | %s |\n", c.Code, c.Severity, strings.ReplaceAll(c.Summary, "|", "\\|"))
 	}
+	readmeSection(t, "codes", b.String())
+}
+
+// TestKindsTable keeps README.md's table of unit kinds equal to the catalogue the notation
+// checks files against.
+func TestKindsTable(t *testing.T) {
+	names := slices.Sorted(maps.Keys(model.Kinds))
+	var b strings.Builder
+	b.WriteString("| kind | what it is | roles | parameters |\n|---|---|---|---|\n")
+	for _, n := range names {
+		k := model.Kinds[n]
+		var roles, params []string
+		for _, p := range k.Ports {
+			r := "`" + p.Role + "`"
+			if p.Many {
+				r += " (one or more)"
+			}
+			roles = append(roles, r)
+		}
+		for _, p := range k.Params {
+			params = append(params, "`"+p.Name+"` ("+p.Doc+")")
+		}
+		fmt.Fprintf(&b, "| `%s` | %s | %s | %s |\n", n, k.Doc, strings.Join(roles, ", "), strings.Join(params, ", "))
+	}
+	readmeSection(t, "kinds", b.String())
+}
+
+// readmeSection compares the part of README.md between the markers of name with want, or
+// rewrites it under -update.
+func readmeSection(t *testing.T, name, want string) {
+	t.Helper()
+	t.Chdir(filepath.Join("..", ".."))
+	begin, end := "<!-- "+name+":begin -->\n", "<!-- "+name+":end -->\n"
 	readme, err := os.ReadFile("README.md")
 	if err != nil {
 		t.Fatal(err)
@@ -258,14 +293,14 @@ func TestCodesTable(t *testing.T) {
 	if i < 0 || j < i {
 		t.Fatalf("README.md lacks the %q and %q markers", begin, end)
 	}
-	want := s[:i+len(begin)] + b.String() + s[j:]
+	whole := s[:i+len(begin)] + want + s[j:]
 	if *update {
-		if err := writeFileAtomic("README.md", []byte(want)); err != nil {
+		if err := writeFileAtomic("README.md", []byte(whole)); err != nil {
 			t.Fatal(err)
 		}
 		return
 	}
-	if want != s {
-		t.Error("README.md's table of diagnostic codes is out of date: go test ./cmd/hmb -run CodesTable -update")
+	if whole != s {
+		t.Errorf("README.md's %s table is out of date: go test ./cmd/hmb -run %s -update", name, t.Name())
 	}
 }
