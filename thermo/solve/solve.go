@@ -53,7 +53,7 @@ type StreamResult struct {
 type UnitResult struct {
 	Q          float64 // duty in the kind's own sense: heat added (heater, boiler), removed (cooler), passed hot to cold (exchanger), W
 	W          float64 // shaft power: produced by a turbine, absorbed by a pump, W
-	Sgen       float64 // entropy generation, W/K (see entropy.go for the boundary temperatures)
+	Sgen       float64 // entropy generation, W/K (each unit's file states where its boundary lies)
 	Efficiency float64 // isentropic (turbine, pump) or boiler efficiency
 	Fuel       float64 // boiler fuel heat input, W
 	// Flows through the unit: mass in kg/s; energy in W (sum of m h plus heat and work crossing
