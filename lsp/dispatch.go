@@ -21,10 +21,10 @@ import (
 // the edits, and then runs in a goroutine of its own, under a context that $/cancelRequest
 // cancels. A panic anywhere becomes an error reply, never the end of the process.
 
-// method handles one request. When doc is set, the params name a text document and snap is its
-// snapshot as of the request's arrival (nil when the document is not open).
+// method handles one request. When doc is set, it finds the document the params name, and snap
+// is that document's snapshot as of the request's arrival (nil when the document is not open).
 type method struct {
-	doc  bool
+	doc  func(params json.RawMessage) protocol.DocumentURI
 	call func(s *Server, ctx context.Context, snap *cache.Snapshot, params json.RawMessage) (any, error)
 }
 
@@ -45,13 +45,14 @@ func init() {
 		protocol.MethodSemanticTokensFull:         docMethod((*Server).semanticTokens),
 		protocol.MethodTextDocumentFormatting:     docMethod((*Server).formatting),
 		protocol.MethodTextDocumentCodeAction:     docMethod((*Server).codeAction),
+		protocol.MethodWorkspaceExecuteCommand:    {doc: commandURI, call: (*Server).executeCommand},
 	}
 }
 
 // docMethod adapts a typed handler. A request for a document that is not open gets a null result:
 // editors ask about files they have not opened, and an error would only be noise.
 func docMethod[P any, R any](f func(s *Server, ctx context.Context, snap *cache.Snapshot, p *P) (R, error)) method {
-	return method{doc: true, call: func(s *Server, ctx context.Context, snap *cache.Snapshot, raw json.RawMessage) (any, error) {
+	return method{doc: documentURI, call: func(s *Server, ctx context.Context, snap *cache.Snapshot, raw json.RawMessage) (any, error) {
 		var p P
 		if err := decode(raw, &p); err != nil {
 			return nil, err
@@ -125,8 +126,8 @@ func (s *Server) dispatchCall(ctx context.Context, reply jsonrpc2.Replier, req *
 		s.mu.Unlock()
 	}
 	var snap *cache.Snapshot
-	if m.doc {
-		snap = s.session.Snapshot(documentURI(req.Params()))
+	if m.doc != nil {
+		snap = s.session.Snapshot(m.doc(req.Params()))
 	}
 	ctx, cancel := context.WithCancel(ctx)
 	s.mu.Lock()

@@ -14,17 +14,18 @@ import (
 
 	"hmb/lang/format"
 	"hmb/lsp/analysis"
+	"hmb/lsp/feature"
 )
 
 // fragments are the pieces fuzzed documents and edits are built from: enough of the notation to
 // reach the checker and the solver, and the characters that make UTF-16 columns differ from
-// bytes and runes (degree sign, superscript, an emoji outside the BMP, CRLF).
+// bytes and runes (degree sign, superscript, an emoji outside the BMP, CRLF, a lone CR).
 var fragments = []string{
 	"stream ", "S1", "S2", " {", "}", "\n", " ", ";", "p 40 bar", "T 400 °C", "flow 10 kg/s", "x 0",
 	"valve V1 { in S1; out S2 }", "turbine T1 {\n  in S1\n  out S2\n  efficiency 0.8\n}\n",
 	"mixer M { in S1, S2; out S3 }", "expect S2 T < 200 C", "display US\n", "title \"t\"\n",
 	"°", "²", "🔥", "\r\n", "\"", "#", "barr", "1e400", "-", "=", ",", "heater H { in S1; out S2; duty 5 MW }",
-	"stream S1\nstream S1\n", "elevation 100 m\n", "dp 3 psi", "h 2800 kJ/kg",
+	"stream S1\nstream S1\n", "elevation 100 m\n", "dp 3 psi", "h 2800 kJ/kg", "\r",
 }
 
 // docMethods are the document requests a fuzzed script may send.
@@ -74,25 +75,32 @@ func (s *script) pos() protocol.Position {
 	return protocol.Position{Line: s.coord(), Character: s.coord()}
 }
 
-// offsetUTF16 is the test's own reading of a protocol position in text: lines end at "\n" (a
-// "\r" before it is not part of the line), columns count UTF-16 units and are clamped to the
-// line, a line past the end means the end, and a column inside a surrogate pair stays before it.
+// offsetUTF16 is the test's own reading of a protocol position in text: lines end at "\n",
+// "\r\n" or a lone "\r" (the break is not part of the line), columns count UTF-16 units and are
+// clamped to the line, a line past the end means the end, and a column inside a surrogate pair
+// stays before it.
 func offsetUTF16(text string, p protocol.Position) int {
+	// lineEnd is where the line starting at i ends, and where the next one starts (-1: none).
+	lineEnd := func(i int) (end, next int) {
+		k := strings.IndexAny(text[i:], "\r\n")
+		if k < 0 {
+			return len(text), -1
+		}
+		end = i + k
+		if strings.HasPrefix(text[end:], "\r\n") {
+			return end, end + 2
+		}
+		return end, end + 1
+	}
 	start := 0
 	for l := uint32(0); l < p.Line; l++ {
-		i := strings.IndexByte(text[start:], '\n')
-		if i < 0 {
+		_, next := lineEnd(start)
+		if next < 0 {
 			return len(text)
 		}
-		start += i + 1
+		start = next
 	}
-	end := len(text)
-	if i := strings.IndexByte(text[start:], '\n'); i >= 0 {
-		end = start + i
-	}
-	if end > start && text[end-1] == '\r' {
-		end--
-	}
+	end, _ := lineEnd(start)
 	n := uint32(0)
 	for off, r := range text[start:end] {
 		w := uint32(len(utf16.Encode([]rune{r})))
@@ -113,7 +121,7 @@ func applyUTF16(text string, r protocol.Range, newText string) string {
 }
 
 // FuzzServer drives one server with a sequence of opens, edits (incremental and whole-text),
-// closes, cancellations and document requests at any position, decoded from the fuzzer's bytes.
+// closes, cancellations, document requests at any position and the table command, decoded from the fuzzer's bytes.
 // The server must answer every request, never show NaN, and end up holding the same text as the
 // test's own copy: formatting, which the server computes from its text, must turn the test's copy
 // into what hmb fmt makes of it.
@@ -166,6 +174,15 @@ func FuzzServer(f *testing.F) {
 				c.notifyServer(protocol.MethodTextDocumentDidClose, map[string]any{"textDocument": map[string]any{"uri": u}})
 			case op == 5:
 				c.notifyServer(protocol.MethodCancelRequest, map[string]any{"id": s.next()})
+			case op == 6:
+				var table string
+				err := c.call(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(u), &table)
+				if err != nil && errCode(err) == 0 {
+					t.Fatalf("%s: %v (not a protocol error: the connection failed)", feature.CommandStreamTable, err)
+				}
+				if strings.Contains(table, "NaN") || strings.Contains(table, "Inf") {
+					t.Fatalf("the table shows %s", table)
+				}
 			}
 		}
 		for _, u := range uris {

@@ -42,7 +42,8 @@ func (s *Server) initialize(ctx context.Context, _ *cache.Snapshot, raw json.Raw
 				Legend: protocol.SemanticTokensLegend{TokenTypes: feature.TokenTypes, TokenModifiers: feature.TokenModifiers},
 				Full:   true,
 			},
-			InlayHintProvider: true,
+			InlayHintProvider:      true,
+			ExecuteCommandProvider: &protocol.ExecuteCommandOptions{Commands: commands},
 		},
 		ServerInfo: &protocol.ServerInfo{Name: "hmb", Version: version},
 	}, nil

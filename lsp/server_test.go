@@ -228,7 +228,8 @@ func TestLatestEditWins(t *testing.T) {
 // s1 = IAPWS97(P=4.0, T=673.15), h2 = s1.h - 500 (5000 kW over 10 kg/s) and
 // s2 = IAPWS97(P=0.1, h=h2): h1 3214.37, s1 6.77119, v1 0.0734318; h2 2714.37 kJ/kg, T2 118.894 C,
 // s2 7.46194, v2 1.78790; entropy generated 10*(s2.s - s1.s) = 6.90744 kW/K; efficiency
-// 500/(s1.h - IAPWS97(P=0.1, s=s1.s).h) = 0.659229.
+// 500/(s1.h - IAPWS97(P=0.1, s=s1.s).h) = 0.659229. The title's tables show the same values,
+// rounded as hmb table rounds them.
 func TestHoverGolden(t *testing.T) {
 	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
 	c.open(uri, 1, plant)
@@ -244,6 +245,7 @@ func TestHoverGolden(t *testing.T) {
 		{"in S1"},       // role
 		{"power"},       // parameter
 		{"flow"},        // property
+		{"title"},       // the file's title: its stream and unit tables
 	}
 	var b strings.Builder
 	for _, tc := range cases {
@@ -330,7 +332,7 @@ func TestCompletion(t *testing.T) {
 		{"pressure-drop spelling", at(t, src, "dp 3 ", 5), "MPa MPa(a) MPa(g) MPaa MPag Pa atm bar bar(a) bar(g) bara barg inH2O inHg kPa kPa(a) kPa(g) kPaa kPag mbar psi psi(a) psi(g) psia psig"},
 		{"temperature spelling", at(t, src, "T 10 ", 5), "C F K R degC degF degK degR °C °F °R ℃ ℉"},
 		{"stream property", at(t, src, "T 10 \n  \n", 8), "flow p T h s x stream expect title display atmosphere elevation tolerance within fluid"},
-		{"expect target", at(t, src, "expect S1", 7), "S1 S2 S3"},
+		{"expect target", at(t, src, "expect S1", 7), "S1 S2 S3 T1 V1"},
 		{"partial word", at(t, src, "in S2", 4), "S1 S2 S3"},
 	}
 	for _, tt := range tests {

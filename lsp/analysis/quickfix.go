@@ -37,8 +37,12 @@ func (a *Analyzer) QuickFixes(syn *cache.Syntax, sol *cache.Solution, d model.Di
 				break
 			}
 		}
-		line := f.Src.Position(at).Line
-		start := f.Src.LineStart(line)
+		// The line start as the editor counts lines: after "\n" or a lone "\r".
+		src := f.Src.Src
+		start := at
+		for start > 0 && src[start-1] != '\n' && src[start-1] != '\r' {
+			start--
+		}
 		return []cache.QuickFix{{
 			Title: "Declare stream " + name,
 			Edits: []cache.Edit{{Span: model.Span{Start: start, End: start}, NewText: "stream " + name + "\n"}},

@@ -1,7 +1,10 @@
 package analysis
 
 import (
+	"slices"
+
 	"hmb/lang/ast"
+	"hmb/lang/check"
 	"hmb/lang/token"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
@@ -100,13 +103,32 @@ func (a *Analyzer) Site(syn *cache.Syntax, off int) cache.Site {
 		site.Kinds = cache.SiteKeyword | cache.SiteUnitKind
 		return site
 	}
+	// The unit an expectation names, if it names one of a known kind.
+	expectUnit := func() *model.Kind {
+		if len(entry) < 2 || d.res.Info == nil {
+			return nil
+		}
+		if o := d.res.Info.Objects[text(entry[1])]; o != nil && o.IsUnit {
+			return o.Kind
+		}
+		return nil
+	}
 	switch first := text(entry[0]); {
 	case first == "expect" && len(entry) == 1:
-		site.Kinds = cache.SiteStream
+		site.Kinds = cache.SiteStream | cache.SiteUnit
 	case first == "expect" && len(entry) == 2:
-		site.Kinds = cache.SiteProp
+		if k := expectUnit(); k != nil {
+			site.Kinds, site.UnitKind, site.Results = cache.SiteResult, k.Name, check.Results(k)
+		} else {
+			site.Kinds = cache.SiteProp
+		}
 	case first == "expect" && last() == token.Number:
-		if dim, ok := propDim(text(entry[2])); ok {
+		if k := expectUnit(); k != nil {
+			// Duty and power take power units; sgen, an entropy rate, has no dimension of its own.
+			if r := text(entry[2]); r != "sgen" && slices.Contains(check.Results(k), r) {
+				site.Kinds, site.Dim = cache.SiteSpelling, units.Power
+			}
+		} else if dim, ok := propDim(text(entry[2])); ok {
 			site.Kinds, site.Dim = cache.SiteSpelling, dim
 		}
 	case first == "atmosphere" && last() == token.Number:

@@ -23,7 +23,7 @@ var propQuantity = [model.NumProps]cache.Quantity{
 // FromResult converts the solver's result for m. Values stay in SI base units; anything the
 // solver did not find is NaN, never a zero that would read as a value.
 func FromResult(m *model.Model, r *solve.Result) *cache.Solution {
-	sol := &cache.Solution{Diagnostics: r.Diags}
+	sol := &cache.Solution{Diagnostics: r.Diags, Data: r}
 	nan := math.NaN()
 	sol.Streams = make([]cache.StreamState, len(m.Streams))
 	for i := range sol.Streams {

@@ -29,6 +29,10 @@ type Analyzer interface {
 	// QuickFixes proposes edits for one diagnostic beyond its Fix (declare a stream, add a
 	// missing specification). sol may be nil.
 	QuickFixes(syn *Syntax, sol *Solution, d model.Diagnostic) []QuickFix
+	// Tables writes the stream table and the unit table of a checked file as Markdown, in the
+	// file's display units, as hmb table does. sol may be nil (not solved: every value unknown).
+	// It is an error when the file could not be lowered (Syntax.Model is nil).
+	Tables(name string, src []byte, syn *Syntax, sol *Solution) (string, error)
 }
 
 // Syntax is what the fast stage knows about one version of a file.
@@ -117,13 +121,16 @@ const (
 	SiteProp                          // a stream property
 	SiteSpelling                      // a unit spelling of dimension Site.Dim
 	SiteStream                        // the name of a declared stream
+	SiteUnit                          // the name of a declared unit
+	SiteResult                        // what an expectation may check on a unit: Site.Results
 )
 
 // Site is what may be written at one place.
 type Site struct {
 	Kinds    SiteKind
-	UnitKind string     // for SiteRole, SiteParam
+	UnitKind string     // for SiteRole, SiteParam, SiteResult
 	Dim      units.Dim  // for SiteSpelling
+	Results  []string   // for SiteResult, with Site.UnitKind
 	Replace  model.Span // the partly typed word completion replaces (empty at a fresh place)
 }
 
@@ -178,6 +185,8 @@ type Solution struct {
 	Diagnostics []model.Diagnostic
 	Streams     []StreamState // indexed like Model.Streams
 	Units       []UnitBalance // indexed like Model.Units
+	// Data is the implementation's own (the solver's own result, say) for Tables.
+	Data any
 }
 
 // StreamState is the solved state of one stream. A quantity the solver did not find is NaN.

@@ -69,6 +69,7 @@ type ServerCapabilities struct {
 	RenameProvider             *protocol.RenameOptions          `json:"renameProvider,omitempty"`
 	SemanticTokensProvider     *SemanticTokensOptions           `json:"semanticTokensProvider,omitempty"`
 	InlayHintProvider          bool                             `json:"inlayHintProvider"`
+	ExecuteCommandProvider     *protocol.ExecuteCommandOptions  `json:"executeCommandProvider,omitempty"`
 }
 
 // InitializeResult is initialize's result.

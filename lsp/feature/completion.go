@@ -1,7 +1,8 @@
 package feature
 
 // This file implements completion: keywords, unit kinds, the roles and parameters of the unit
-// being written, stream properties, unit spellings of the right dimension and stream names.
+// being written, stream properties, the results an expectation may check on a unit, unit
+// spellings of the right dimension, and stream and unit names.
 
 import (
 	"fmt"
@@ -71,10 +72,33 @@ func Completion(snap *cache.Snapshot, off int) *protocol.CompletionList {
 			add(s, protocol.CompletionItemKindUnit, site.Dim.String())
 		}
 	}
+	if site.Kinds&cache.SiteResult != 0 {
+		k := model.Kinds[site.UnitKind]
+		for _, r := range site.Results {
+			doc := sgenDoc
+			if k != nil {
+				if p := k.Param(r); p != nil {
+					doc = p.Doc
+				}
+			}
+			add(r, protocol.CompletionItemKindProperty, doc)
+		}
+	}
 	if site.Kinds&cache.SiteStream != 0 {
 		for _, s := range syn.Symbols {
 			if s.Kind == cache.StreamSymbol {
 				add(s.Name, protocol.CompletionItemKindVariable, s.Label)
+			}
+		}
+	}
+	if site.Kinds&cache.SiteUnit != 0 {
+		for _, s := range syn.Symbols {
+			if s.Kind == cache.UnitSymbol {
+				detail := s.UnitKind
+				if s.Label != "" {
+					detail += " " + s.Label
+				}
+				add(s.Name, protocol.CompletionItemKindClass, detail)
 			}
 		}
 	}

@@ -1,7 +1,8 @@
 package feature
 
-// This file implements hover: the solved state of a stream, the balance of a unit, the SI value of
-// a unit spelling and one line of help on keywords, kinds, roles, parameters and properties.
+// This file implements hover: the solved state of a stream, the balance of a unit, the solved
+// tables of the whole file on its title, the SI value of a unit spelling and one line of help on
+// keywords, kinds, roles, parameters and properties.
 
 import (
 	"context"
@@ -39,7 +40,19 @@ func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover,
 	} else if t := tokenAt(syn, off); t >= 0 {
 		tok := syn.Tokens[t]
 		span = tok.Span
-		text = tokenHover(snap, syn, t)
+		if sp, ok := titleSpan(snap.Src(), syn, t); ok && syn.Model != nil {
+			// The title stands for the whole file: its hover is the file's solved tables.
+			tables, err := Tables(ctx, snap)
+			if err != nil && ctx.Err() != nil {
+				return nil, err
+			}
+			if err == nil {
+				span, text = sp, tables
+			}
+		}
+		if text == "" {
+			text = tokenHover(snap, syn, t)
+		}
 	}
 	if text == "" {
 		return nil, nil
@@ -85,6 +98,10 @@ func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
 			return fmt.Sprintf("`%s` (%s parameter of a %s): %s", word, p.Dim, k.Name, p.Doc)
 		}
 	case cache.PropToken:
+		// After a unit's name (an expectation on a unit) the word is one of the unit's results.
+		if t > 0 && syn.Tokens[t-1].Kind == cache.UnitToken {
+			return resultHover(snap.Src(), syn, syn.Tokens[t-1].Span, word)
+		}
 		if doc := propDoc[word]; doc != "" {
 			return fmt.Sprintf("`%s`: %s", word, doc)
 		}
@@ -93,6 +110,29 @@ func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
 	}
 	return ""
 }
+
+// resultHover describes what an expectation checks on the unit named at name.
+func resultHover(src []byte, syn *cache.Syntax, name model.Span, word string) string {
+	var k *model.Kind
+	for _, s := range syn.Symbols {
+		if s.Kind == cache.UnitSymbol && s.Name == string(src[name.Start:name.End]) {
+			k = model.Kinds[s.UnitKind]
+		}
+	}
+	switch {
+	case k == nil:
+		return ""
+	case word == "sgen":
+		return fmt.Sprintf("`sgen` (result of a %s): %s", k.Name, sgenDoc)
+	case k.Param(word) != nil:
+		p := k.Param(word)
+		return fmt.Sprintf("`%s` (%s result of a %s): %s", word, p.Dim, k.Name, p.Doc)
+	}
+	return ""
+}
+
+// sgenDoc is the help on the entropy generation an expectation may check.
+const sgenDoc = "entropy generated, in a power unit per kelvin or rankine (kW/K, Btu/h/R)"
 
 // propDoc is one line of help per stream property a file may give.
 var propDoc = map[string]string{

@@ -32,23 +32,23 @@ var TokenModifiers = []protocol.SemanticTokenModifiers{protocol.SemanticTokenMod
 // assume multi-line token support.
 func SemanticTokens(snap *cache.Snapshot) *protocol.SemanticTokens {
 	syn := snap.Syntax()
-	f := snap.Mapper.File
+	m := snap.Mapper
 	data := make([]uint32, 0, 5*len(syn.Tokens))
 	var prevLine, prevCol uint32
 	for _, t := range syn.Tokens {
 		if int(t.Kind) >= len(TokenTypes) || t.Span.End <= t.Span.Start {
 			continue
 		}
-		start := f.Position(t.Span.Start)
-		end := f.Position(t.Span.End)
+		start := m.Position(t.Span.Start)
+		end := m.Position(t.Span.End)
 		if end.Line != start.Line {
-			end = f.Position(start.Offset + len(f.Line(start.Line)) - start.Col)
+			end = m.Position(m.LineEnd(int(start.Line)))
 		}
-		length := end.UTF16 - start.UTF16
-		if length <= 0 {
+		if end.Character <= start.Character {
 			continue
 		}
-		line, col := uint32(start.Line), uint32(start.UTF16)
+		length := end.Character - start.Character
+		line, col := start.Line, start.Character
 		dl, dc := line-prevLine, col
 		if dl == 0 {
 			dc = col - prevCol
@@ -57,7 +57,7 @@ func SemanticTokens(snap *cache.Snapshot) *protocol.SemanticTokens {
 		if t.Decl {
 			mods = 1
 		}
-		data = append(data, dl, dc, uint32(length), uint32(t.Kind), mods)
+		data = append(data, dl, dc, length, uint32(t.Kind), mods)
 		prevLine, prevCol = line, col
 	}
 	return &protocol.SemanticTokens{Data: data}

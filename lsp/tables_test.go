@@ -1,0 +1,180 @@
+package lsp
+
+// Tests of the file's solved tables, in the hover of its title and from the hmb.streamTable
+// command, over the real solver. The reference values are python3-iapws's, quoted beside
+// turbineFile's constants (solved_test.go).
+
+import (
+	"fmt"
+	"strings"
+	"testing"
+
+	"go.lsp.dev/jsonrpc2"
+	"go.lsp.dev/protocol"
+
+	"hmb/lsp/analysis"
+	"hmb/lsp/cache"
+)
+
+// mdRows reads the rows of the Markdown tables in text: first cell -> all cells, trimmed.
+func mdRows(text string) map[string][]string {
+	rows := map[string][]string{}
+	for _, line := range strings.Split(text, "\n") {
+		if !strings.HasPrefix(line, "|") {
+			continue
+		}
+		cells := strings.Split(strings.Trim(line, "|"), "|")
+		for i := range cells {
+			cells[i] = strings.TrimSpace(cells[i])
+		}
+		rows[cells[0]] = cells
+	}
+	return rows
+}
+
+func streamTableCommand(uri protocol.DocumentURI) map[string]any {
+	return map[string]any{"command": "hmb.streamTable", "arguments": []any{uri}}
+}
+
+func TestTitleHoverAndCommand(t *testing.T) {
+	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c.open(solvedURI, 1, turbineFile)
+	c.waitDiags(solvedURI, 1)
+
+	var onKeyword, onString *protocol.Hover
+	c.mustCall(protocol.MethodTextDocumentHover, docPos(solvedURI, protocol.Position{Line: 0, Character: 2}), &onKeyword)
+	c.mustCall(protocol.MethodTextDocumentHover, docPos(solvedURI, protocol.Position{Line: 0, Character: 10}), &onString)
+	if onKeyword == nil || onString == nil {
+		t.Fatalf("no hover on the title: %v, %v", onKeyword, onString)
+	}
+	// The range is the whole statement: `title "expansion"`, 17 columns.
+	title := protocol.Range{End: protocol.Position{Line: 0, Character: 17}}
+	if *onKeyword.Range != title || *onString.Range != title || onKeyword.Contents.Kind != protocol.Markdown {
+		t.Errorf("ranges %v, %v, kind %s", *onKeyword.Range, *onString.Range, onKeyword.Contents.Kind)
+	}
+	text := onKeyword.Contents.Value
+	if onString.Contents.Value != text {
+		t.Errorf("the hovers on the keyword and on the string differ:\n%s\n%s", text, onString.Contents.Value)
+	}
+	var cmd string
+	c.mustCall(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(solvedURI), &cmd)
+	if cmd != text {
+		t.Errorf("the command's table differs from the hover's:\n%s\n%s", cmd, text)
+	}
+	if !strings.HasPrefix(text, "# expansion\n") {
+		t.Errorf("table starts %q", text)
+	}
+	rows := mdRows(text)
+	// Headings in the file's (SI) display units.
+	if got := strings.Join(rows["stream"], ","); got != "stream,label,flow (kg/s),p (kPa),T (C),h (kJ/kg),s (kJ/(kg K)),x,phase" {
+		t.Errorf("stream table heading %s", got)
+	}
+	// S2 (python3-iapws: T 99.606 C, h 2607.60, s 7.17814, x 0.970168), rounded as the table
+	// writes them: T and h to 0.1, s and x to 1e-4, flow and p to 4 figures.
+	want := []string{"S2", "exhaust", "10.00", "100.0", fmt.Sprintf("%.1f", refT2), fmt.Sprintf("%.1f", refH2),
+		fmt.Sprintf("%.4f", refS2), fmt.Sprintf("%.4f", refX2), "saturated mixture"}
+	if got := rows["S2"]; strings.Join(got, ",") != strings.Join(want, ",") {
+		t.Errorf("S2 row %q, want %q", got, want)
+	}
+	if got := rows["S1"]; len(got) != 9 || got[5] != fmt.Sprintf("%.1f", refH1) || got[7] != "" || got[8] != "superheated vapour" {
+		t.Errorf("S1 row %q", got)
+	}
+	// T1: power 6067.69 kW and entropy generated 4.06946 kW/K, to 4 figures; a turbine has no duty.
+	if got := strings.Join(rows["T1"], ","); got != "T1,,turbine,,6068,4.069" {
+		t.Errorf("T1 row %s", got)
+	}
+	if got := strings.Join(rows["unit"], ","); got != "unit,label,kind,duty (kW),shaft power (kW),entropy generation (kW/K)" {
+		t.Errorf("unit table heading %s", got)
+	}
+}
+
+// TestTablesUSDisplay shows the tables in the file's US units.
+func TestTablesUSDisplay(t *testing.T) {
+	src := strings.Replace(turbineFile, "display SI", "display US", 1)
+	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c.open(solvedURI, 1, src)
+	var cmd string
+	c.mustCall(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(solvedURI), &cmd)
+	rows := mdRows(cmd)
+	if h := rows["stream"]; len(h) != 9 || h[4] != "T (F)" {
+		t.Fatalf("heading %q in\n%s", h, cmd)
+	}
+	if got := rows["S2"][4]; got != fmt.Sprintf("%.1f", refT2F) {
+		t.Errorf("S2 T = %s F, want %.1f (python3-iapws)", got, refT2F)
+	}
+	// 6067.69 kW in Btu/h (1 Btu_IT = 1055.05585262 J), to 4 figures.
+	near(t, "T1 power (US)", rows["T1"][4], refPowerBtuPerH, 5e-4)
+	if h := rows["unit"]; len(h) != 6 || h[4] != "shaft power (Btu/h)" {
+		t.Errorf("unit heading %q", h)
+	}
+}
+
+func TestExecuteCommandErrors(t *testing.T) {
+	c := startServer(t, newTestOptions(0))
+	var res struct {
+		Capabilities struct {
+			ExecuteCommandProvider struct{ Commands []string }
+		}
+	}
+	// The capability is announced in initialize's result; ask a fresh server.
+	c2 := startRaw(t, newTestOptions(0))
+	c2.mustCall(protocol.MethodInitialize, map[string]any{"capabilities": map[string]any{}}, &res)
+	if got := res.Capabilities.ExecuteCommandProvider.Commands; len(got) != 1 || got[0] != "hmb.streamTable" {
+		t.Errorf("executeCommandProvider commands %q", got)
+	}
+	c.open(uri, 1, plant)
+	tests := []struct {
+		name   string
+		params any
+	}{
+		{"unopened document", streamTableCommand("file:///nowhere.hmb")},
+		{"unknown command", map[string]any{"command": "hmb.nothing", "arguments": []any{uri}}},
+		{"no argument", map[string]any{"command": "hmb.streamTable"}},
+		{"two arguments", map[string]any{"command": "hmb.streamTable", "arguments": []any{uri, uri}}},
+		{"argument not a URI", map[string]any{"command": "hmb.streamTable", "arguments": []any{42}}},
+	}
+	for _, tt := range tests {
+		if err := c.call(protocol.MethodWorkspaceExecuteCommand, tt.params, nil); errCode(err) != jsonrpc2.InvalidParams {
+			t.Errorf("%s: %v, want InvalidParams", tt.name, err)
+		}
+	}
+	// A text document identifier names the document as well as a bare URI. The double solves
+	// nothing, so every computed value is n/a, never a number.
+	var text string
+	c.mustCall(protocol.MethodWorkspaceExecuteCommand, map[string]any{"command": "hmb.streamTable",
+		"arguments": []any{map[string]any{"uri": uri}}}, &text)
+	if got := strings.Join(mdRows(text)["S2"], ","); got != "S2,exhaust 🔥,n/a,n/a,n/a,n/a,n/a,n/a,unsolved" {
+		t.Errorf("S2 row unsolved: %s", got)
+	}
+	// A half-typed file tabulates what the checker could lower.
+	c.change(uri, 2, map[string]any{"text": "title \"half\"\nstream S1 {\n"})
+	c.mustCall(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(uri), &text)
+	if got := strings.Join(mdRows(text)["S1"], ","); !strings.HasPrefix(text, "# half\n") || got != "S1,,n/a,n/a,n/a,n/a,n/a,n/a,unsolved" {
+		t.Errorf("half-typed file: S1 row %s in\n%s", got, text)
+	}
+}
+
+// noModel is a language whose files never lower to a model.
+type noModel struct{ *analysis.Analyzer }
+
+func (a noModel) Check(name string, src []byte) *cache.Syntax {
+	syn := a.Analyzer.Check(name, src)
+	syn.Model = nil
+	return syn
+}
+
+// TestTablesWithoutModel: a file that cannot be lowered has no tables. The command fails; the
+// title's hover is the keyword's help.
+func TestTablesWithoutModel(t *testing.T) {
+	c := startServer(t, options{analyzer: noModel{analysis.New(solveDouble)}})
+	c.open(uri, 1, plant)
+	err := c.call(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(uri), nil)
+	if errCode(err) != requestFailed || !strings.Contains(err.Error(), "nothing to tabulate") {
+		t.Errorf("tables of a file without a model: %v", err)
+	}
+	var h *protocol.Hover
+	c.mustCall(protocol.MethodTextDocumentHover, docPos(uri, protocol.Position{Line: 0, Character: 1}), &h)
+	if h == nil || h.Contents.Value != "`title`: setting: the title of the calc" || *h.Range != (protocol.Range{End: protocol.Position{Character: 5}}) {
+		t.Errorf("hover on the title: %+v", h)
+	}
+}
