@@ -49,11 +49,9 @@ func (a *Analyzer) QuickFixes(syn *cache.Syntax, sol *cache.Solution, d model.Di
 		}}
 	case solve.CodeUnderSpecified:
 		var fixes []cache.QuickFix
-		for _, c := range specifyCandidates(d.Message) {
-			name, what, _ := strings.Cut(c, " ")
-			what, _, _ = strings.Cut(what, " or ") // "T or h": T is what a file usually states
-			if e, ok := addEntry(f, name, what); ok {
-				fixes = append(fixes, cache.QuickFix{Title: fmt.Sprintf("Specify %s %s", name, what), Edits: []cache.Edit{e}})
+		for _, c := range d.Specify[:min(len(d.Specify), maxSpecifyFixes)] {
+			if e, ok := addEntry(f, c.Name, c.Prop); ok {
+				fixes = append(fixes, cache.QuickFix{Title: fmt.Sprintf("Specify %s %s", c.Name, c.Prop), Edits: []cache.Edit{e}})
 			}
 		}
 		return fixes
@@ -64,23 +62,6 @@ func (a *Analyzer) QuickFixes(syn *cache.Syntax, sol *cache.Solution, d model.Di
 // maxSpecifyFixes bounds the fixes offered for one under-specified system: the first few
 // candidates are the ones nearest the missing value.
 const maxSpecifyFixes = 6
-
-// specifyCandidates reads the solver's list of values that would fix an under-specified system
-// from its message ("...; specify one of: V1 dp, A T or h (and 3 more)").
-func specifyCandidates(msg string) []string {
-	i := strings.LastIndex(msg, " of: ")
-	if i < 0 {
-		return nil
-	}
-	list, _, _ := strings.Cut(msg[i+len(" of: "):], " (and ")
-	var out []string
-	for _, c := range strings.Split(list, ", ") {
-		if strings.Count(c, " ") >= 1 && len(out) < maxSpecifyFixes {
-			out = append(out, c)
-		}
-	}
-	return out
-}
 
 // addEntry returns the edit that adds an entry "what " to the block of the stream or unit
 // named name, for the user to type its value: on a line of its own before a closing brace on its

@@ -41,6 +41,15 @@ type Diagnostic struct {
 	Related  []Related
 	// Fix, when set, is a suggested replacement of the text at Span (a nearest spelling, say).
 	Fix string
+	// Specify lists, for an under-specified system, values a file could state to fix it, the
+	// nearest first (the message names the same ones).
+	Specify []Spec
+}
+
+// Spec names one value a calc file could state: a property of a stream or a parameter of a unit.
+type Spec struct {
+	Name string // the stream or unit
+	Prop string // as written in a file: "flow", "p", "T" (a stream's state), "dp", "duty"...
 }
 
 // CodeInfo documents one diagnostic code.

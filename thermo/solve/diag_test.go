@@ -648,3 +648,23 @@ func TestEnergyClosureAgainstDuty(t *testing.T) {
 		t.Errorf("no B504 setting the given duty against the implied one")
 	}
 }
+
+// TestSpecifyList: an under-specified system lists, besides its message, the values that would
+// fix it in a form an editor can insert (a stream's h is offered as T).
+func TestSpecifyList(t *testing.T) {
+	m := mk(t, streams{strm("S1", pp, 2e6, tt, 573.15), strm("S2"), strm("S3", pp, 1e6, tt, 473.15)},
+		unit("V1", "valve", ports("in S1", "out S2")), unit("H", "heater", ports("in S2", "out S3")))
+	d := findDiag(solveModel(t, m), CodeUnderSpecified)
+	if d == nil {
+		t.Fatal("no B501")
+	}
+	want := []model.Spec{{Name: "S1", Prop: "flow"}, {Name: "S2", Prop: "flow"}, {Name: "S3", Prop: "flow"}}
+	if len(d.Specify) < len(want) || !slices.Equal(d.Specify[:len(want)], want) {
+		t.Errorf("Specify = %v, want it to start with %v (message %q)", d.Specify, want, d.Message)
+	}
+	m = mk(t, streams{strm("S1", flow, 2, pp, 2e6, tt, 573.15), strm("S2")}, unit("V1", "valve", ports("in S1", "out S2")))
+	d = findDiag(solveModel(t, m), CodeUnderSpecified)
+	if d == nil || !slices.Contains(d.Specify, model.Spec{Name: "V1", Prop: "dp"}) || !slices.Contains(d.Specify, model.Spec{Name: "S2", Prop: "p"}) {
+		t.Errorf("valve: %+v", d)
+	}
+}

@@ -338,7 +338,7 @@ func (s *solveRun) blockFailed(blk, vars []int, err error) {
 		var cands []string
 		seen := map[string]bool{}
 		for _, v := range vars {
-			if n := s.candName(v); n != "" && !seen[n] {
+			if n, _ := s.candName(v); n != "" && !seen[n] {
 				seen[n] = true
 				cands = append(cands, n)
 			}
@@ -638,14 +638,16 @@ func (s *solveRun) underSpecified() {
 			span = s.m.Units[first.Unit].Span
 		}
 		var names []string
+		var specs []model.Spec
 		seen := map[string]bool{}
 		for _, c := range g.cands {
-			n := s.candName(c)
+			n, spec := s.candName(c)
 			if n == "" || seen[n] {
 				continue
 			}
 			seen[n] = true
 			names = append(names, n)
+			specs = append(specs, spec)
 		}
 		more := ""
 		if len(names) > 10 {
@@ -674,20 +676,24 @@ func (s *solveRun) underSpecified() {
 			msg = fmt.Sprintf("under-specified by %d values: nothing fixes %s; specify %d of: %s%s", len(missing), andList(missing), len(missing), strings.Join(names, ", "), more)
 		}
 		s.diag(model.Error, CodeUnderSpecified, span, msg, rel...)
+		s.diags[len(s.diags)-1].Specify = specs
 	}
 }
 
 // candName names an unknown as something a file can give: a stream's h may be fixed by T, h, s
 // or x, so it is offered as "T or h".
-func (s *solveRun) candName(v int) string {
+// The Spec offers T for a stream's h: the temperature is what a file usually states.
+func (s *solveRun) candName(v int) (string, model.Spec) {
 	vr := s.b.sys.Vars[v]
 	if vr.Stream >= 0 {
+		name := s.m.Streams[vr.Stream].Name
 		if s.b.blocked[vr.Stream] {
-			return ""
+			return "", model.Spec{}
 		}
 		if vr.Prop == model.H {
-			return s.m.Streams[vr.Stream].Name + " T or h"
+			return name + " T or h", model.Spec{Name: name, Prop: "T"}
 		}
+		return vr.Name, model.Spec{Name: name, Prop: vr.Prop.String()}
 	}
-	return vr.Name
+	return vr.Name, model.Spec{Name: s.m.Units[vr.Unit].Name, Prop: vr.Param}
 }
