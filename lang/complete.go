@@ -52,10 +52,10 @@ func (r *Result) ContextAt(offset int) Context {
 	var header, line []token.Token
 	inBlock := false
 	for _, t := range toks {
-		if t.Kind == token.EOF || t.Pos >= offset {
+		if t.Kind == token.EOF || int(t.Pos) >= offset {
 			break
 		}
-		if t.Kind == token.Comment && offset <= t.End {
+		if t.Kind == token.Comment && offset <= int(t.End) {
 			return Context{Kind: InComment}
 		}
 		switch t.Kind {
@@ -70,7 +70,7 @@ func (r *Result) ContextAt(offset int) Context {
 			line = nil
 		case token.Comment:
 		default:
-			if t.End == offset && t.Kind == token.Ident {
+			if int(t.End) == offset && t.Kind == token.Ident {
 				continue // the word being typed
 			}
 			line = append(line, t)

@@ -108,7 +108,7 @@ func (definition) Lex(filename string, r io.Reader) (lexer.Lexer, error) {
 	out := make([]lexer.Token, len(toks))
 	for i, t := range toks {
 		out[i] = lexer.Token{Type: tokenType(t.Kind), Value: s[t.Pos:t.End],
-			Pos: lexer.Position{Filename: filename, Offset: t.Pos}}
+			Pos: lexer.Position{Filename: filename, Offset: int(t.Pos)}}
 	}
 	return &pieceLexer{toks: out}, nil
 }

@@ -45,7 +45,7 @@ func Parse(filename string, src []byte) (*ast.File, []model.Diagnostic) {
 		k := 0
 		for _, t := range toks {
 			if t.Kind == token.Comment {
-				cs[k] = ast.Comment{Hash: t.Pos, Text: p.str[t.Pos:t.End]}
+				cs[k] = ast.Comment{Hash: int(t.Pos), Text: p.str[t.Pos:t.End]}
 				p.file.Comments[k] = &cs[k]
 				k++
 			}
@@ -120,7 +120,7 @@ func (p *parser) sizeArenas() (lines []int) {
 		n[t.Kind&31]++
 		switch {
 		case t.Kind == token.Newline:
-			lines = append(lines, t.End)
+			lines = append(lines, int(t.End))
 		case t.Kind == token.Ident && t.End-t.Pos == 6 && p.str[t.Pos:t.End] == "stream":
 			streamKw++
 		}
@@ -191,7 +191,7 @@ func (p *parser) errorf(code string, pos, end int, format string, args ...any) *
 func (p *parser) text(t token.Token) string { return p.str[t.Pos:t.End] }
 
 func (p *parser) isKeyword(t token.Token, kw string) bool {
-	return t.Kind == token.Ident && t.End-t.Pos == len(kw) && p.str[t.Pos:t.End] == kw
+	return t.Kind == token.Ident && int(t.End)-int(t.Pos) == len(kw) && p.str[t.Pos:t.End] == kw
 }
 
 // skip passes over separators and comments.
@@ -209,7 +209,7 @@ func (p *parser) skip(i int) int {
 func (p *parser) parseFile() {
 	for i := p.skip(0); p.toks[i].Kind != token.EOF; i = p.skip(i) {
 		if t := p.toks[i]; t.Kind == token.RBrace {
-			p.errorf(CodeStrayBrace, t.Pos, t.End, "} with no block open")
+			p.errorf(CodeStrayBrace, int(t.Pos), int(t.End), "} with no block open")
 			i++
 			continue
 		}
@@ -296,7 +296,7 @@ func isSignificant(k token.Kind) bool {
 // start a statement comes, is reported and closed there.
 func (p *parser) block(lb int, owner ast.Stmt) (*ast.Block, int) {
 	b := p.blocks.new()
-	b.Lbrace, b.Rbrace = p.toks[lb].Pos, -1
+	b.Lbrace, b.Rbrace = int(p.toks[lb].Pos), -1
 	p.entries = p.entries[:0]
 	next := p.blockEntries(b, lb, owner)
 	if len(p.entries) == 0 {
@@ -316,7 +316,7 @@ func (p *parser) blockEntries(b *ast.Block, lb int, owner ast.Stmt) int {
 		i = p.skip(i)
 		switch t := p.toks[i]; t.Kind {
 		case token.RBrace:
-			b.Rbrace = t.Pos
+			b.Rbrace = int(t.Pos)
 			return i + 1
 		case token.EOF:
 			p.unclosed(b, owner, -1)
@@ -343,7 +343,7 @@ func (p *parser) blockEntries(b *ast.Block, lb int, owner ast.Stmt) int {
 		}
 		first := p.toks[i]
 		if startsStmt || p.isKeyword(first, "stream") || p.isKeyword(first, "expect") {
-			p.unclosed(b, owner, first.Pos)
+			p.unclosed(b, owner, int(first.Pos))
 			return i
 		}
 		if piece := p.significant(i, j); len(piece) > 0 {
@@ -375,7 +375,7 @@ func (p *parser) streamDecl(piece []token.Token) ast.Stmt {
 		return bad
 	}
 	d := p.streams.new()
-	d.Keyword, d.Name, d.Label = piece[0].Pos, p.ident(piece, &g.Name), p.label(piece, g.Label)
+	d.Keyword, d.Name, d.Label = int(piece[0].Pos), p.ident(piece, &g.Name), p.label(piece, g.Label)
 	if len(g.More) > 0 {
 		d.More = p.identArr.take(len(g.More))
 		for k := range g.More {
@@ -419,8 +419,8 @@ func (p *parser) expect(piece []token.Token) ast.Stmt {
 		return bad
 	}
 	op := piece[g.Op.Pos.Offset]
-	return &ast.Expect{Keyword: piece[0].Pos, Target: p.ident(piece, &g.Target), Prop: p.ident(piece, &g.Prop),
-		OpPos: op.Pos, Op: p.text(op), Value: p.quantity(piece, &g.Value), Tol: p.tol(piece, g.Tol),
+	return &ast.Expect{Keyword: int(piece[0].Pos), Target: p.ident(piece, &g.Target), Prop: p.ident(piece, &g.Prop),
+		OpPos: int(op.Pos), Op: p.text(op), Value: p.quantity(piece, &g.Value), Tol: p.tol(piece, g.Tol),
 		Label: p.label(piece, g.Label)}
 }
 
@@ -450,8 +450,8 @@ func (p *parser) entry(piece []token.Token) ast.Entry {
 }
 
 func (p *parser) missingValue(t token.Token) *ast.Bad {
-	p.errorf(CodeMissingValue, t.Pos, t.End, "%s has no value after it", p.text(t))
-	return &ast.Bad{From: t.Pos, To: t.End}
+	p.errorf(CodeMissingValue, int(t.Pos), int(t.End), "%s has no value after it", p.text(t))
+	return &ast.Bad{From: int(t.Pos), To: int(t.End)}
 }
 
 // Conversions from a production's result. Captured tokens carry, in Pos.Offset, their index in the
@@ -460,7 +460,7 @@ func (p *parser) missingValue(t token.Token) *ast.Bad {
 func (p *parser) ident(piece []token.Token, t *lexer.Token) *ast.Ident {
 	tk := piece[t.Pos.Offset]
 	id := p.idents.new()
-	id.NamePos, id.Name = tk.Pos, p.text(tk)
+	id.NamePos, id.Name = int(tk.Pos), p.text(tk)
 	return id
 }
 
@@ -471,7 +471,7 @@ func (p *parser) label(piece []token.Token, t *lexer.Token) *ast.String {
 	tk := piece[t.Pos.Offset]
 	raw := p.text(tk)
 	x := p.strs.new()
-	x.ValuePos, x.Raw, x.Value = tk.Pos, raw, Unquote(raw)
+	x.ValuePos, x.Raw, x.Value = int(tk.Pos), raw, Unquote(raw)
 	return x
 }
 
@@ -480,7 +480,7 @@ func (p *parser) quantity(piece []token.Token, q *gQuantity) *ast.Quantity {
 	raw := p.text(tk)
 	v := parseNumber(raw)
 	x := p.qtys.new()
-	x.NumPos, x.Raw, x.Value = tk.Pos, raw, v
+	x.NumPos, x.Raw, x.Value = int(tk.Pos), raw, v
 	if q.Unit != nil {
 		x.Unit = p.ident(piece, q.Unit)
 	}
@@ -525,7 +525,7 @@ func (p *parser) tol(piece []token.Token, t *gTol) *ast.Tol {
 	}
 	op := piece[t.Op.Pos.Offset]
 	x := p.tols.new()
-	x.OpPos, x.Op, x.Amount = op.Pos, p.text(op), p.quantity(piece, &t.Amt)
+	x.OpPos, x.Op, x.Amount = int(op.Pos), p.text(op), p.quantity(piece, &t.Amt)
 	return x
 }
 
@@ -645,7 +645,7 @@ func runParticiple[G any](p *parser, gp *participle.Parser[G], piece []token.Tok
 }
 
 func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast.Bad {
-	from, to := piece[0].Pos, piece[len(piece)-1].End
+	from, to := int(piece[0].Pos), int(piece[len(piece)-1].End)
 	var msg string
 	switch {
 	case e.at == 0 && piece[0].Kind != token.Ident:
@@ -653,7 +653,7 @@ func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast
 		msg = fmt.Sprintf("unexpected %s: a statement starts with stream, expect, a unit kind or a setting", p.describe(t))
 	case e.at < len(piece):
 		t := piece[e.at]
-		from = t.Pos
+		from = int(t.Pos)
 		exp := "the end of the line"
 		if e.expect != "" {
 			exp = firstExpected(e.expect)
@@ -664,7 +664,7 @@ func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast
 		msg = fmt.Sprintf("%s ends too early: expected %s", what, firstExpected(e.expect))
 	}
 	p.errorf(CodeSyntax, from, max(to, from), "%s", msg)
-	return &ast.Bad{From: piece[0].Pos, To: to}
+	return &ast.Bad{From: int(piece[0].Pos), To: to}
 }
 
 func (p *parser) describe(t token.Token) string {

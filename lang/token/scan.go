@@ -12,7 +12,13 @@ import (
 //
 // The scanner is written by hand rather than with regular expressions: it runs on every
 // keystroke in the editor and over files of tens of thousands of lines.
+//
+// A source of more than MaxSource bytes is not scanned: it yields only an EOF token at offset 0
+// and an error saying why.
 func Scan(src []byte) (toks []Token, errs []Error) {
+	if len(src) > MaxSource {
+		return []Token{{Kind: EOF}}, []Error{{0, 0, "file is too large (2 GiB or more) to check"}}
+	}
 	toks = make([]Token, 0, len(src)/3+1) // calc files run to about one token per 4-5 bytes
 	i := 0
 	if len(src) >= 3 && src[0] == 0xEF && src[1] == 0xBB && src[2] == 0xBF { // UTF-8 byte order mark
@@ -24,12 +30,12 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 		if ascii[c]&identStart != 0 { // most tokens are names: straight to them
 			tok := wordToken(src, i)
 			toks = append(toks, tok)
-			i = tok.End
+			i = int(tok.End)
 			continue
 		}
 		if isDigit(c) { // then numbers
 			i = scanNumber(src, i)
-			toks = append(toks, Token{Number, start, i})
+			toks = append(toks, newToken(Number, start, i))
 			continue
 		}
 		switch {
@@ -39,11 +45,11 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 			continue
 		case c == '\n':
 			i++
-			toks = append(toks, Token{Newline, start, i})
+			toks = append(toks, newToken(Newline, start, i))
 			continue
 		case c == ';':
 			i++
-			toks = append(toks, Token{Semi, start, i})
+			toks = append(toks, newToken(Semi, start, i))
 			continue
 		case c == '#':
 			for i < len(src) && src[i] != '\n' {
@@ -53,30 +59,30 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 			if end > start && src[end-1] == '\r' {
 				end--
 			}
-			toks = append(toks, Token{Comment, start, end})
+			toks = append(toks, newToken(Comment, start, end))
 			continue
 		case c == '"':
 			end, ok := scanString(src, i)
-			toks = append(toks, Token{String, start, end})
+			toks = append(toks, newToken(String, start, end))
 			if !ok {
 				errs = append(errs, Error{start, end, "string not terminated before the end of the line"})
 			}
 			i = end
 			continue
 		case c == '{':
-			toks = append(toks, Token{LBrace, i, i + 1})
+			toks = append(toks, newToken(LBrace, i, i+1))
 			i++
 			continue
 		case c == '}':
-			toks = append(toks, Token{RBrace, i, i + 1})
+			toks = append(toks, newToken(RBrace, i, i+1))
 			i++
 			continue
 		case c == ',':
-			toks = append(toks, Token{Comma, i, i + 1})
+			toks = append(toks, newToken(Comma, i, i+1))
 			i++
 			continue
 		case c == '=':
-			toks = append(toks, Token{Eq, i, i + 1})
+			toks = append(toks, newToken(Eq, i, i+1))
 			i++
 			continue
 		case c == '<' || c == '>':
@@ -89,23 +95,23 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 				i++
 				k++ // Le follows Lt, Ge follows Gt
 			}
-			toks = append(toks, Token{k, start, i})
+			toks = append(toks, newToken(k, start, i))
 			continue
 		case c == '+' && i+1 < len(src) && src[i+1] == '-':
 			i += 2
-			toks = append(toks, Token{PlusMinus, start, i})
+			toks = append(toks, newToken(PlusMinus, start, i))
 			continue
 		case c == '+' && i+2 < len(src) && src[i+1] == '/' && src[i+2] == '-':
 			i += 3
-			toks = append(toks, Token{PlusMinus, start, i})
+			toks = append(toks, newToken(PlusMinus, start, i))
 			continue
 		case c == 0xC2 && i+1 < len(src) && src[i+1] == 0xB1: // ±
 			i += 2
-			toks = append(toks, Token{PlusMinus, start, i})
+			toks = append(toks, newToken(PlusMinus, start, i))
 			continue
 		case isDigit(c) || (c == '.' || c == '-' || c == '+') && startsNumber(src, i):
 			i = scanNumber(src, i)
-			toks = append(toks, Token{Number, start, i})
+			toks = append(toks, newToken(Number, start, i))
 			continue
 		}
 		// Names, unit spellings, and whatever else: decode the rune.
@@ -119,7 +125,7 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 					}
 					i++
 				}
-				toks = append(toks, Token{Illegal, start, i})
+				toks = append(toks, newToken(Illegal, start, i))
 				errs = append(errs, Error{start, i, "invalid UTF-8 encoding"})
 				continue
 			}
@@ -130,15 +136,15 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 		}
 		if r < ' ' || r == 0x7F || unicode.IsControl(r) {
 			i += size
-			toks = append(toks, Token{Illegal, start, i})
+			toks = append(toks, newToken(Illegal, start, i))
 			errs = append(errs, Error{start, i, "unexpected control character"})
 			continue
 		}
 		tok := wordToken(src, i)
 		toks = append(toks, tok)
-		i = tok.End
+		i = int(tok.End)
 	}
-	toks = append(toks, Token{EOF, len(src), len(src)})
+	toks = append(toks, newToken(EOF, len(src), len(src)))
 	return toks, errs
 }
 
@@ -241,9 +247,9 @@ func wordToken(src []byte, i int) Token {
 		end--
 	}
 	if ident {
-		return Token{Ident, i, end}
+		return newToken(Ident, i, end)
 	}
-	return Token{Word, i, end}
+	return newToken(Word, i, end)
 }
 
 func scanWord(src []byte, i int) (end int, ident bool) {

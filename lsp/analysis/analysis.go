@@ -61,7 +61,7 @@ func (a *Analyzer) Format(name string, src []byte) ([]byte, error) { return form
 // ValidName implements cache.Analyzer: a name is one identifier token that is not a keyword.
 func (a *Analyzer) ValidName(name string) bool {
 	toks, errs := token.Scan([]byte(name))
-	if len(errs) > 0 || len(toks) != 2 || toks[0].Kind != token.Ident || toks[0].End != len(name) {
+	if len(errs) > 0 || len(toks) != 2 || toks[0].Kind != token.Ident || int(toks[0].End) != len(name) {
 		return false
 	}
 	return !isKeyword(name) && model.Kinds[name] == nil

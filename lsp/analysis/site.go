@@ -26,12 +26,12 @@ func (a *Analyzer) Site(syn *cache.Syntax, off int) cache.Site {
 	// The token ending at or containing off is the word being typed, when it is a word.
 	end := len(toks)
 	for i, t := range toks {
-		if t.Pos >= off {
+		if int(t.Pos) >= off {
 			end = i
 			break
 		}
-		if t.Pos < off && off <= t.End && (t.Kind == token.Ident || t.Kind == token.Word) {
-			site.Replace = model.Span{Start: t.Pos, End: t.End}
+		if int(t.Pos) < off && off <= int(t.End) && (t.Kind == token.Ident || t.Kind == token.Word) {
+			site.Replace = model.Span{Start: int(t.Pos), End: int(t.End)}
 			end = i
 			break
 		}
@@ -55,7 +55,7 @@ func (a *Analyzer) Site(syn *cache.Syntax, off int) cache.Site {
 			break
 		}
 		if toks[j].Kind == token.LBrace {
-			lbrace = toks[j].Pos
+			lbrace = int(toks[j].Pos)
 			break
 		}
 	}
