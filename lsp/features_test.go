@@ -237,11 +237,15 @@ func TestIncrementalSync(t *testing.T) {
 type solveLog struct {
 	mu                  sync.Mutex
 	finished, cancelled []string
+	started             chan struct{} // closed when a "slow" solve begins, if not nil
 }
 
 // solver solves a model titled "slow" only when cancelled; others at once, with solveDouble.
 func (l *solveLog) solver(ctx context.Context, m *model.Model) *cache.Solution {
 	if m.Title == "slow" {
+		if l.started != nil {
+			close(l.started)
+		}
 		<-ctx.Done()
 		l.mu.Lock()
 		l.cancelled = append(l.cancelled, m.Title)
@@ -257,9 +261,14 @@ func (l *solveLog) solver(ctx context.Context, m *model.Model) *cache.Solution {
 // TestDebounceSolvesOnce types a burst of edits while a solve is running: the running solve is
 // cancelled, and of the burst only the last version is solved.
 func TestDebounceSolvesOnce(t *testing.T) {
-	var l solveLog
+	l := solveLog{started: make(chan struct{})}
 	c := startServer(t, options{analyzer: analysis.New(l.solver), debounce: 300 * time.Millisecond})
 	c.open(uri, 1, "title \"slow\"\nstream S1\n")
+	select { // the burst must find the first solve running, whatever the machine's load
+	case <-l.started:
+	case <-time.After(10 * time.Second):
+		t.Fatal("the first solve never started")
+	}
 	for v := int32(2); v <= 6; v++ {
 		c.change(uri, v, map[string]any{"text": fmt.Sprintf("title \"v%d\"\nstream S1\n", v)})
 	}
