@@ -32,25 +32,6 @@ var unreachableCodes = map[string]string{
 	"E603": "an unknown expectation property is N212 in the notation",
 }
 
-// goldenBroken compares got with path (relative to the repository root), or rewrites it under
-// -update.
-func goldenBroken(t *testing.T, path string, got []byte) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(path, got, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test ./cmd/hmb -run TestBrokenSolveGolden -update to create it)", err)
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs from the output (go test ./cmd/hmb -run TestBrokenSolveGolden -update rewrites it after review):\n%s", path, got)
-	}
-}
-
 // renderBroken is hmb check's text output for one file, then the exact range of every
 // diagnostic: the caret line shows where a range starts and its width on that line only.
 func renderBroken(fr *fileResult) []byte {
@@ -106,7 +87,7 @@ func TestBrokenSolveGolden(t *testing.T) {
 			if solverCodes == 0 {
 				t.Errorf("%s: the solver reports nothing; every file here is broken on purpose", name)
 			}
-			goldenBroken(t, strings.TrimSuffix(name, ".hmb")+".golden", renderBroken(fr))
+			golden(t, strings.TrimSuffix(name, ".hmb")+".golden", renderBroken(fr))
 		})
 	}
 }

@@ -41,8 +41,7 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	fset := flag.NewFlagSet("check", flag.ContinueOnError)
 	fset.SetOutput(io.Discard)
 	format := fset.String("format", "text", "output format: text, json or sarif")
-	si := fset.Bool("si", false, "show results in SI units")
-	us := fset.Bool("us", false, "show results in US customary units")
+	sys := addSystemFlags(fset)
 	quiet := fset.Bool("quiet", false, "diagnostics only, no result tables")
 	if err := fset.Parse(args); err != nil {
 		return usageErr("%v", err)
@@ -52,19 +51,12 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	default:
 		return usageErr("unknown --format %q: use text, json or sarif", *format)
 	}
-	if *si && *us {
-		return usageErr("--si and --us exclude each other")
-	}
 	if fset.NArg() == 0 {
 		return usageErr("no files: give calc files (*.hmb) or directories")
 	}
-	var display *units.System
-	if *si {
-		s := units.SI
-		display = &s
-	} else if *us {
-		s := units.US
-		display = &s
+	display, err := sys.display()
+	if err != nil {
+		return err
 	}
 	paths, err := collectFiles(fset.Args())
 	if err != nil {

@@ -17,20 +17,19 @@ import (
 
 var update = flag.Bool("update", false, "rewrite the golden files of the command-line tests")
 
-// golden compares got with the file testdata/cli/name (relative to the repository root, which
-// the caller has made the working directory), or rewrites it under -update.
-func golden(t *testing.T, name string, got []byte) {
+// golden compares got with the file at path, or rewrites it under -update. Every golden file of
+// the command's tests goes through here.
+func golden(t *testing.T, path string, got []byte) {
 	t.Helper()
-	path := filepath.Join("testdata", "cli", name)
 	if *update {
-		if err := os.WriteFile(path, got, 0o644); err != nil {
+		if err := writeFileAtomic(path, got); err != nil {
 			t.Fatal(err)
 		}
 		return
 	}
 	want, err := os.ReadFile(path)
 	if err != nil {
-		t.Fatalf("%v (run go test ./cmd/hmb -update to create it)", err)
+		t.Fatalf("%v (go test ./cmd/hmb -run %s -update creates it; review it before committing)", err, t.Name())
 	}
 	if !bytes.Equal(got, want) {
 		t.Errorf("%s differs from the output (go test ./cmd/hmb -run %s -update rewrites it after review):\n%s", path, t.Name(), got)
@@ -66,7 +65,7 @@ func TestCheckGolden(t *testing.T) {
 			if code := run(tt.args, nil, &out, &errb); code != tt.code {
 				t.Fatalf("exit %d, want %d; stderr %s", code, tt.code, errb.String())
 			}
-			golden(t, tt.golden, out.Bytes())
+			golden(t, filepath.Join("testdata", "cli", tt.golden), out.Bytes())
 		})
 	}
 }

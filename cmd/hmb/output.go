@@ -6,8 +6,8 @@ import (
 	"fmt"
 	"io"
 	"strings"
-	"unicode/utf8"
 
+	"hmb/lang/source"
 	"hmb/thermo/model"
 )
 
@@ -23,51 +23,18 @@ type jsonRange struct {
 	End   position `json:"end"`
 }
 
-// lineIndex maps byte offsets of one file to positions.
-type lineIndex struct {
-	src   []byte
-	start []int // byte offset of each line start
-}
+// lineIndex resolves byte offsets of one file to positions, through the notation's own mapper.
+type lineIndex struct{ f *source.File }
 
-func newLineIndex(src []byte) *lineIndex {
-	li := &lineIndex{src: src, start: []int{0}}
-	for i, c := range src {
-		if c == '\n' {
-			li.start = append(li.start, i+1)
-		}
-	}
-	return li
-}
+func newLineIndex(src []byte) *lineIndex { return &lineIndex{source.New("", src)} }
 
 func (li *lineIndex) pos(off int) position {
-	off = max(0, min(off, len(li.src)))
-	line := sortSearch(li.start, off)
-	col := utf8.RuneCount(li.src[li.start[line]:off]) + 1
-	return position{Line: line + 1, Column: col}
+	p := li.f.Position(off)
+	return position{Line: p.Line + 1, Column: p.Rune + 1}
 }
 
-// sortSearch returns the index of the last line start <= off.
-func sortSearch(starts []int, off int) int {
-	lo, hi := 0, len(starts)
-	for hi-lo > 1 {
-		mid := (lo + hi) / 2
-		if starts[mid] <= off {
-			lo = mid
-		} else {
-			hi = mid
-		}
-	}
-	return lo
-}
-
-func (li *lineIndex) lineText(line int) string {
-	s := li.start[line-1]
-	e := len(li.src)
-	if line < len(li.start) {
-		e = li.start[line] - 1
-	}
-	return strings.TrimRight(string(li.src[s:e]), "\r")
-}
+// lineText is the 1-based line without its terminator.
+func (li *lineIndex) lineText(line int) string { return string(li.f.Line(line - 1)) }
 
 func (li *lineIndex) rng(sp model.Span) jsonRange {
 	return jsonRange{Start: li.pos(sp.Start), End: li.pos(sp.End)}

@@ -28,16 +28,16 @@ var propDims = map[string]units.Dim{
 func runProps(args []string, stdout io.Writer) error {
 	fs := flag.NewFlagSet("props", flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
-	si := fs.Bool("si", false, "show SI units")
-	us := fs.Bool("us", false, "show US customary units")
+	sysFlags := addSystemFlags(fs)
 	asJSON := fs.Bool("json", false, "print one JSON object in SI base units")
 	atmArg := fs.String("atm", "", "site atmosphere for gauge pressures, e.g. 12.9psia")
 	elevArg := fs.String("elevation", "", "site elevation for gauge pressures, e.g. 1500m")
 	if err := fs.Parse(args); err != nil {
 		return usageErr("%v", err)
 	}
-	if *si && *us {
-		return usageErr("--si and --us exclude each other")
+	display, err := sysFlags.display()
+	if err != nil {
+		return err
 	}
 	atm, err := siteAtmosphere(*atmArg, *elevArg)
 	if err != nil {
@@ -62,13 +62,9 @@ func runProps(args []string, stdout io.Writer) error {
 	if *asJSON {
 		return writeStateJSON(stdout, st)
 	}
-	sys := units.SI
-	switch {
-	case *us:
-		sys = units.US
-	case *si:
-	default:
-		sys = inferSystem(in[:])
+	sys := inferSystem(in[:])
+	if display != nil {
+		sys = *display
 	}
 	writeStateTable(stdout, st, sys, atm)
 	return nil

@@ -6,13 +6,10 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"io/fs"
 	"os"
-	"path/filepath"
 
 	"hmb/thermo/model"
 	"hmb/thermo/report"
-	"hmb/thermo/units"
 )
 
 // runReport writes one self-contained HTML page for a calc file: tables, diagrams, findings.
@@ -36,29 +33,6 @@ func runReport(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	return findingsExit(in)
-}
-
-type systemFlags struct{ si, us *bool }
-
-func addSystemFlags(fset *flag.FlagSet) systemFlags {
-	return systemFlags{
-		si: fset.Bool("si", false, "show results in SI units"),
-		us: fset.Bool("us", false, "show results in US customary units"),
-	}
-}
-
-func (s systemFlags) display() (*units.System, error) {
-	switch {
-	case *s.si && *s.us:
-		return nil, usageErr("--si and --us exclude each other")
-	case *s.si:
-		v := units.SI
-		return &v, nil
-	case *s.us:
-		v := units.US
-		return &v, nil
-	}
-	return nil, nil
 }
 
 // loadReportInput checks the one file named on the command line. A file whose notation could not
@@ -91,45 +65,10 @@ func emit(path string, data []byte, stdout io.Writer) error {
 		_, err := stdout.Write(data)
 		return err
 	}
-	if err := writeNewFileAtomic(path, data); err != nil {
+	if err := writeFileAtomic(path, data); err != nil {
 		return &exitError{code: 2, msg: err.Error()}
 	}
 	return nil
-}
-
-// writeNewFileAtomic writes path through a temporary file in the same directory and a rename, so
-// a reader never sees half a page. Unlike rewriting a calc file in place, the target may not exist
-// yet; a new file gets mode 0644, an existing one keeps its mode.
-func writeNewFileAtomic(path string, data []byte) error {
-	mode := fs.FileMode(0o644)
-	if info, err := os.Stat(path); err == nil {
-		if !info.Mode().IsRegular() {
-			return fmt.Errorf("%s is not a regular file", path)
-		}
-		mode = info.Mode().Perm()
-	}
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
-	if err != nil {
-		return err
-	}
-	name := tmp.Name()
-	defer os.Remove(name) // no-op after a successful rename
-	if _, err := tmp.Write(data); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Chmod(mode); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Sync(); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Close(); err != nil {
-		return err
-	}
-	return os.Rename(name, path)
 }
 
 // findingsExit gives the exit status after the output is written: 1 when the file has errors,

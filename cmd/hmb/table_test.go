@@ -4,27 +4,12 @@ import (
 	"bytes"
 	"encoding/csv"
 	"encoding/xml"
-	"flag"
 	"io"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
 )
-
-// The report tests share the package's -update flag; it is registered here only when no other
-// test file of the package has done so.
-func init() {
-	if flag.Lookup("update") == nil {
-		flag.Bool("update", false, "rewrite the golden files")
-	}
-}
-
-func reportUpdate() bool {
-	f := flag.Lookup("update")
-	return f != nil && f.Value.String() == "true"
-}
 
 const (
 	reportExamples = "../../testdata/examples"
@@ -38,25 +23,6 @@ func exampleFiles(t *testing.T) []string {
 		t.Fatalf("no examples in %s: %v", reportExamples, err)
 	}
 	return files
-}
-
-// reportGolden compares got with testdata/report/name, or rewrites it under -update.
-func reportGolden(t *testing.T, name string, got []byte) {
-	t.Helper()
-	path := filepath.Join(reportGoldens, name)
-	if reportUpdate() {
-		if err := writeNewFileAtomic(path, got); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (go test ./cmd/hmb -run %s -update creates it; review it before committing)", err, t.Name())
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs (go test ./cmd/hmb -run %s -update rewrites it after review):\n%s", path, t.Name(), got)
-	}
 }
 
 // runReportCmd runs one hmb subcommand and returns its exit status, stdout and stderr.
@@ -78,7 +44,7 @@ func TestTableGolden(t *testing.T) {
 				if code == 2 {
 					t.Fatalf("exit 2: %s", stderr)
 				}
-				reportGolden(t, base+".table."+format, out)
+				golden(t, filepath.Join(reportGoldens, base+".table."+format), out)
 			})
 		}
 	}
