@@ -479,3 +479,52 @@ func (b *builder) checkParams(u int) {
 		}
 	}
 }
+
+// isentropicEfficiency adds the efficiency equation of a turbine (expansion) or a pump, with
+// h_s = h(p_out, s(p_in, h_in)):
+//
+//	turbine: h_in - h_out = efficiency * (h_in - h_s)
+//	pump:    efficiency * (h_out - h_in) = h_s - h_in
+func isentropicEfficiency(b *builder, u, in, out int, eta term, expansion bool) {
+	hi, ho, pi, po := b.hv(in), b.hv(out), b.pv(in), b.pv(out)
+	lhs, rhs := "efficiency x actual rise", "isentropic rise"
+	if expansion {
+		lhs, rhs = "actual enthalpy drop", "efficiency x isentropic drop"
+	}
+	b.unitEq(u, Equation{
+		Label: "isentropic efficiency of " + b.uname(u), Kind: EqWork, Dim: units.SpecificEnergy,
+		LHS: lhs, RHS: rhs, Vars: []int{ho, eta.v, hi, po, pi},
+		eval: func(x []float64) (float64, float64, error) {
+			hs, err := isentropicH(x[pi], x[hi], x[po])
+			if expansion {
+				return x[hi] - x[ho], x[eta.v] * (x[hi] - hs), err
+			}
+			return x[eta.v] * (x[ho] - x[hi]), hs - x[hi], err
+		},
+		direct: func(x []float64, v int) (float64, error) {
+			if v != ho && v != eta.v {
+				// A pressure or the inlet enthalpy: only Newton can invert the
+				// isentropic enthalpy. Checked first, since that unknown has no value yet.
+				return math.NaN(), errNoDirect
+			}
+			hs, err := isentropicH(x[pi], x[hi], x[po])
+			if err != nil {
+				return math.NaN(), err
+			}
+			// Both forms: efficiency = actual change / isentropic change for a turbine, the
+			// inverse for a pump.
+			ideal, actual := hs-x[hi], x[ho]-x[hi]
+			switch {
+			case v == ho && expansion:
+				return x[hi] + x[eta.v]*ideal, nil
+			case v == ho:
+				return x[hi] + ideal/x[eta.v], nil
+			case expansion:
+				return actual / ideal, nil
+			default:
+				return ideal / actual, nil
+			}
+		},
+		floor: 1,
+	})
+}

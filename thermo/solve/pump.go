@@ -2,11 +2,9 @@ package solve
 
 import (
 	"fmt"
-	"math"
 
 	"hmb/thermo/if97"
 	"hmb/thermo/model"
-	"hmb/thermo/units"
 )
 
 // Pump: adiabatic compression of liquid taking shaft power.
@@ -25,34 +23,7 @@ func buildPump(b *builder, u int) {
 	eta := b.param(u, "efficiency", true, 0)
 	b.massBalance(u, []int{in}, []int{out})
 	b.energyBalance(u, "", []int{in}, []int{out}, []term{w}, nil)
-	hi, ho, pi, po := b.hv(in), b.hv(out), b.pv(in), b.pv(out)
-	b.unitEq(u, Equation{
-		Label: "isentropic efficiency of " + b.uname(u), Kind: EqWork, Dim: units.SpecificEnergy,
-		LHS: "efficiency x actual rise", RHS: "isentropic rise", Vars: []int{ho, eta.v, hi, po, pi},
-		eval: func(x []float64) (float64, float64, error) {
-			hs, err := isentropicH(x[pi], x[hi], x[po])
-			return x[eta.v] * (x[ho] - x[hi]), hs - x[hi], err
-		},
-		direct: func(x []float64, v int) (float64, error) {
-			if v != ho && v != eta.v {
-				// A pressure or the inlet enthalpy: only Newton can invert the
-				// isentropic enthalpy. Checked first, since that unknown has no value yet.
-				return math.NaN(), errNoDirect
-			}
-			hs, err := isentropicH(x[pi], x[hi], x[po])
-			if err != nil {
-				return math.NaN(), err
-			}
-			switch v {
-			case ho:
-				return x[hi] + (hs-x[hi])/x[eta.v], nil
-			case eta.v:
-				return (hs - x[hi]) / (x[ho] - x[hi]), nil
-			}
-			return math.NaN(), errNoDirect
-		},
-		floor: 1,
-	})
+	isentropicEfficiency(b, u, in, out, eta, false)
 }
 
 func finishPump(c *unitCalc) {

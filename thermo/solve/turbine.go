@@ -2,7 +2,6 @@ package solve
 
 import (
 	"fmt"
-	"math"
 
 	"hmb/thermo/model"
 	"hmb/thermo/units"
@@ -24,34 +23,7 @@ func buildTurbine(b *builder, u int) {
 	eta := b.param(u, "efficiency", true, 0)
 	b.massBalance(u, []int{in}, []int{out})
 	b.energyBalance(u, "", []int{in}, []int{out}, nil, []term{w})
-	hi, ho, pi, po := b.hv(in), b.hv(out), b.pv(in), b.pv(out)
-	b.unitEq(u, Equation{
-		Label: "isentropic efficiency of " + b.uname(u), Kind: EqWork, Dim: units.SpecificEnergy,
-		LHS: "actual enthalpy drop", RHS: "efficiency x isentropic drop", Vars: []int{ho, eta.v, hi, po, pi},
-		eval: func(x []float64) (float64, float64, error) {
-			hs, err := isentropicH(x[pi], x[hi], x[po])
-			return x[hi] - x[ho], x[eta.v] * (x[hi] - hs), err
-		},
-		direct: func(x []float64, v int) (float64, error) {
-			if v != ho && v != eta.v {
-				// A pressure or the inlet enthalpy: only Newton can invert the
-				// isentropic enthalpy. Checked first, since that unknown has no value yet.
-				return math.NaN(), errNoDirect
-			}
-			hs, err := isentropicH(x[pi], x[hi], x[po])
-			if err != nil {
-				return math.NaN(), err
-			}
-			switch v {
-			case ho:
-				return x[hi] - x[eta.v]*(x[hi]-hs), nil
-			case eta.v:
-				return (x[hi] - x[ho]) / (x[hi] - hs), nil
-			}
-			return math.NaN(), errNoDirect
-		},
-		floor: 1,
-	})
+	isentropicEfficiency(b, u, in, out, eta, true)
 }
 
 func finishTurbine(c *unitCalc) {
