@@ -254,3 +254,15 @@ var (
 	pSat623 = psat(t13)  // MPa: saturation pressure at the 1-3 boundary
 	pTriple = psat(tMin) // MPa: lowest saturation pressure of IF97
 )
+
+// gibbsRegion evaluates the basic equation of region 1, 2 or 5 (any other region number means
+// 5): the regions whose equations are Gibbs free energies in p and T.
+func gibbsRegion(region int, pm, t float64) props {
+	switch region {
+	case 1:
+		return region1(pm, t)
+	case 2:
+		return region2(pm, t)
+	}
+	return region5(pm, t)
+}

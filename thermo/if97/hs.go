@@ -116,14 +116,7 @@ func solveHS(region int, h, s float64) (State, bool) {
 	}
 	var pr props
 	for i := 0; i < 50; i++ {
-		switch region {
-		case 1:
-			pr = region1(pm, t)
-		case 2:
-			pr = region2(pm, t)
-		default:
-			pr = region5(pm, t)
-		}
+		pr = gibbsRegion(region, pm, t)
 		fh, fs := pr.h-h, pr.s-s
 		// Jacobian in (p MPa, T K): dh/dT = cp, ds/dT = cp/T,
 		// dh/dp = v(1 - T alpha), ds/dp = -v alpha (kJ/kg per MPa).
@@ -153,14 +146,7 @@ func solveHS(region int, h, s float64) (State, bool) {
 	t = snap(t, tMin)
 	t = snap(t, tMax25)
 	t = snap(t, tMax)
-	switch region {
-	case 1:
-		pr = region1(pm, t)
-	case 2:
-		pr = region2(pm, t)
-	default:
-		pr = region5(pm, t)
-	}
+	pr = gibbsRegion(region, pm, t)
 	if math.Abs(pr.h-h) > 1e-11*math.Max(math.Abs(h), 1) || math.Abs(pr.s-s) > 1e-11*math.Max(math.Abs(s), 1) {
 		return State{}, false
 	}

@@ -231,13 +231,6 @@ func solveT(region int, pm, y float64, k second, tlo, thi float64) (State, error
 		t = tn
 	}
 	var pr props
-	switch region {
-	case 1:
-		pr = region1(pm, t)
-	case 2:
-		pr = region2(pm, t)
-	default:
-		pr = region5(pm, t)
-	}
+	pr = gibbsRegion(region, pm, t)
 	return single(pr, region), nil
 }
