@@ -12,10 +12,10 @@ import (
 	"testing"
 )
 
-var codeRE = regexp.MustCompile(`^[A-Z][0-9]{3}$`)
+var codeRE = regexp.MustCompile(`^HMB[0-9]{3}$`)
 
 // TestCodesDocumented reads the source of every package under lang and checks that each string
-// constant shaped like a diagnostic code ("V302") has one row in Codes, with a severity and a
+// constant shaped like a diagnostic code ("HMB302") has one row in Codes, with a severity and a
 // one-line summary; and that Codes holds no row for a code nothing declares, nor one code twice.
 // The command line prints and publishes this table (--help, SARIF rules).
 func TestCodesDocumented(t *testing.T) {
@@ -60,8 +60,8 @@ func TestCodesDocumented(t *testing.T) {
 		case c.Severity.String() == "?":
 			t.Errorf("%s has no severity", c.Code)
 		}
-		// Code order is by number: the letter names the stage (P1xx parser, N2xx names, V3xx values).
-		if c.Code[1:] <= prev[min(1, len(prev)):] {
+		// Code order is by number: the hundreds name the stage (1 parser, 2 names, 3 values).
+		if c.Code <= prev {
 			t.Errorf("Codes is not in code order: %s after %s", c.Code, prev)
 		}
 		rows[c.Code], prev = true, c.Code
@@ -69,6 +69,25 @@ func TestCodesDocumented(t *testing.T) {
 	for code, where := range declared {
 		if !rows[code] {
 			t.Errorf("%s (declared at %s) has no row in Codes", code, where)
+		}
+	}
+}
+
+// TestCodeNames checks that every code has a unique readable name and help text: SARIF publishes
+// them as the rule's name and help.
+func TestCodeNames(t *testing.T) {
+	nameRE := regexp.MustCompile(`^[a-z0-9]+(-[a-z0-9]+)*$`)
+	seen := map[string]string{}
+	for _, c := range Codes {
+		if !nameRE.MatchString(c.Name) {
+			t.Errorf("%s: name %q is not kebab-case", c.Code, c.Name)
+		}
+		if prev, ok := seen[c.Name]; ok {
+			t.Errorf("%s and %s share the name %q", prev, c.Code, c.Name)
+		}
+		seen[c.Name] = c.Code
+		if c.Help == "" || strings.ContainsAny(c.Help, "\n\r") {
+			t.Errorf("%s: help %q is empty or not one line", c.Code, c.Help)
 		}
 	}
 }

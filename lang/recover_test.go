@@ -89,10 +89,10 @@ func checkPrefix(t *testing.T, name string, src []byte) {
 	if openBlock(src) {
 		found := false
 		for _, d := range r.Diags {
-			found = found || d.Code == "P104"
+			found = found || d.Code == "HMB104"
 		}
 		if !found || !r.Model.Incomplete {
-			t.Errorf("%s, first %d bytes: stops inside a block, but no P104 (incomplete %v)\n%s", name, len(src), r.Model.Incomplete, src)
+			t.Errorf("%s, first %d bytes: stops inside a block, but no HMB104 (incomplete %v)\n%s", name, len(src), r.Model.Incomplete, src)
 		}
 	}
 }
@@ -140,7 +140,7 @@ func TestRecoveryChecksTheRest(t *testing.T) {
 	for _, d := range r.Diags {
 		got = append(got, d.Code+" "+src[d.Span.Start:d.Span.End])
 	}
-	want := []string{"P103 bar", "P103 12 x", "V302 lbm/h", "N204 A", "V303 1.5"}
+	want := []string{"HMB103 bar", "HMB103 12 x", "HMB302 lbm/h", "HMB204 A", "HMB303 1.5"}
 	if strings.Join(got, "; ") != strings.Join(want, "; ") {
 		t.Errorf("diagnostics\n got %q\nwant %q", got, want)
 	}

@@ -51,11 +51,11 @@ func TestMisspeltNameQuickFixes(t *testing.T) {
 	c.waitDiags(uri, 1)
 	all := codeActions(t, c, uri, protocol.Range{End: protocol.Position{Line: 9}})
 	want := []string{
-		`V306 Replace with "T" true: 0:27-0:31 "T"`,
-		`N201 Replace with "Feed" true: 2:14-2:17 "Feed"`,
-		`N201 Declare stream Fed false: 2:0-2:0 "stream Fed\n"`,
-		`N208 Replace with "out" true: 2:19-2:25 "out"`,
-		`N207 Replace with "heater" true: 3:0-3:5 "heater"`,
+		`HMB306 Replace with "T" true: 0:27-0:31 "T"`,
+		`HMB201 Replace with "Feed" true: 2:14-2:17 "Feed"`,
+		`HMB201 Declare stream Fed false: 2:0-2:0 "stream Fed\n"`,
+		`HMB208 Replace with "out" true: 2:19-2:25 "out"`,
+		`HMB207 Replace with "heater" true: 3:0-3:5 "heater"`,
 	}
 	if !slices.Equal(all, want) {
 		t.Errorf("code actions:\n got %q\nwant %q", all, want)
@@ -272,7 +272,7 @@ func TestDebounceSolvesOnce(t *testing.T) {
 	for v := int32(2); v <= 6; v++ {
 		c.change(uri, v, map[string]any{"text": fmt.Sprintf("title \"v%d\"\nstream S1\n", v)})
 	}
-	if ds := c.waitDiags(uri, 6); len(ds) != 1 || ds[0].Code != "N209" {
+	if ds := c.waitDiags(uri, 6); len(ds) != 1 || ds[0].Code != "HMB209" {
 		t.Errorf("version 6: %+v", ds)
 	}
 	l.mu.Lock()
@@ -296,7 +296,7 @@ func TestLoneCR(t *testing.T) {
 		}
 		return out
 	}
-	if got, want := diags(1), []string{"V301 0:16-0:20", "V302 1:16-1:18"}; !slices.Equal(got, want) {
+	if got, want := diags(1), []string{"HMB301 0:16-0:20", "HMB302 1:16-1:18"}; !slices.Equal(got, want) {
 		t.Errorf("diagnostics %q, want %q", got, want)
 	}
 	// Line 3: `valve V1 { in S1; out ` is 22 units.
@@ -318,12 +318,12 @@ func TestLoneCR(t *testing.T) {
 	other := protocol.DocumentURI("file:///cr.hmb")
 	c.open(other, 1, "stream S1 { p 1 bar }\rvalve V1 { in S1; out S9 }\r")
 	c.waitDiags(other, 1)
-	if got := codeActions(t, c, other, protocol.Range{Start: protocol.Position{Line: 1, Character: 23}, End: protocol.Position{Line: 1, Character: 23}}); !slices.Equal(got, []string{`N201 Declare stream S9 false: 1:0-1:0 "stream S9\n"`}) {
+	if got := codeActions(t, c, other, protocol.Range{Start: protocol.Position{Line: 1, Character: 23}, End: protocol.Position{Line: 1, Character: 23}}); !slices.Equal(got, []string{`HMB201 Declare stream S9 false: 1:0-1:0 "stream S9\n"`}) {
 		t.Errorf("code actions %q", got)
 	}
 	// An edit on line 3 by the protocol's count.
 	c.change(uri, 2, map[string]any{"range": s2, "text": "S9"})
-	if got := diags(2); !slices.Contains(got, "N201 3:22-3:24") {
+	if got := diags(2); !slices.Contains(got, "HMB201 3:22-3:24") {
 		t.Errorf("after the edit: %q", got)
 	}
 }
@@ -337,22 +337,22 @@ func TestConflictRelated(t *testing.T) {
 	var got *protocol.Diagnostic
 	ds := c.waitDiags(solvedURI, 1)
 	for i := range ds {
-		if ds[i].Code == "B503" {
+		if ds[i].Code == "HMB503" {
 			got = &ds[i]
 		}
 	}
 	var want *model.Diagnostic
 	for _, d := range checkDiags(string(solvedURI), []byte(src)) {
-		if d.Code == "B503" {
+		if d.Code == "HMB503" {
 			want = &d
 		}
 	}
 	if got == nil || want == nil {
-		t.Fatalf("no B503: published %+v", ds)
+		t.Fatalf("no HMB503: published %+v", ds)
 	}
 	v1 := protocol.Range{Start: protocol.Position{Line: 2, Character: 6}, End: protocol.Position{Line: 2, Character: 8}}
 	if got.Range != v1 || got.Message != want.Message || got.Severity != protocol.DiagnosticSeverity(want.Severity) {
-		t.Errorf("B503 = %+v, want at %v: %+v", got, v1, want)
+		t.Errorf("HMB503 = %+v, want at %v: %+v", got, v1, want)
 	}
 	// The two flows given: "flow 8 kg/s" on line 1 and "flow 10 kg/s" on line 0, from column 11.
 	wantRel := []protocol.Range{

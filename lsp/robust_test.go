@@ -54,7 +54,7 @@ func TestUTF16Columns(t *testing.T) {
 	c.open(uri, 1, utf16Src)
 	// Line 0: `stream S1 "200 °C ² 🔥" { p 1 ` is 30 units (the emoji two), so barr is 30-34.
 	ds := c.waitDiags(uri, 1)
-	if len(ds) != 1 || ds[0].Code != "V301" || ds[0].Range != (protocol.Range{Start: protocol.Position{Line: 0, Character: 30}, End: protocol.Position{Line: 0, Character: 34}}) {
+	if len(ds) != 1 || ds[0].Code != "HMB301" || ds[0].Range != (protocol.Range{Start: protocol.Position{Line: 0, Character: 30}, End: protocol.Position{Line: 0, Character: 34}}) {
 		t.Errorf("diagnostics %+v", ds)
 	}
 	// Line 2: `valve V1 "°C²" { in ` is 20 units, so S1 is 20-22 and S2 28-30.
@@ -86,7 +86,7 @@ func TestUTF16Columns(t *testing.T) {
 	for _, d := range c.waitDiags(uri, 2) {
 		codes = append(codes, fmt.Sprintf("%v %d:%d-%d", d.Code, d.Range.Start.Line, d.Range.Start.Character, d.Range.End.Character))
 	}
-	if got := strings.Join(codes, ", "); !strings.Contains(got, "V301 0:31-35") || !strings.Contains(got, "N201 2:28-30") {
+	if got := strings.Join(codes, ", "); !strings.Contains(got, "HMB301 0:31-35") || !strings.Contains(got, "HMB201 2:28-30") {
 		t.Errorf("after the edits: %s", got)
 	}
 	var syms []protocol.DocumentSymbol
@@ -146,7 +146,7 @@ func TestLargeDocument(t *testing.T) {
 	col := uint32(len("stream B40000 { p 5 "))
 	c.change(big, 2, map[string]any{"range": protocol.Range{Start: protocol.Position{Line: line, Character: col}, End: protocol.Position{Line: line, Character: col + 3}}, "text": "barr"})
 	ds := c.waitDiags(big, 2)
-	if len(ds) != 1 || ds[0].Code != "V301" || ds[0].Range.Start != (protocol.Position{Line: line, Character: col}) {
+	if len(ds) != 1 || ds[0].Code != "HMB301" || ds[0].Range.Start != (protocol.Position{Line: line, Character: col}) {
 		t.Fatalf("after the edit: %+v", ds)
 	}
 	last := strings.Count(src, "\n") - 2 // "  out Bn" of the last valve

@@ -141,10 +141,10 @@ func TestDiagnostics(t *testing.T) {
 	// The messages are hmb check's own: the same lang.Check the command line runs.
 	msgs := checkMessages(src)
 	want := []wantDiag{
-		{0, 33, 37, "V301", msgs["V301"]},
-		{1, 22, 24, "N201", msgs["N201"]},
+		{0, 33, 37, "HMB301", msgs["HMB301"]},
+		{1, 22, 24, "HMB201", msgs["HMB201"]},
 	}
-	if !strings.Contains(msgs["V301"], "barr") || !strings.Contains(msgs["N201"], "S9") {
+	if !strings.Contains(msgs["HMB301"], "barr") || !strings.Contains(msgs["HMB201"], "S9") {
 		t.Fatalf("lang.Check gave %q", msgs)
 	}
 	if !reflect.DeepEqual(got, want) {
@@ -153,7 +153,7 @@ func TestDiagnostics(t *testing.T) {
 	// Fixing the unit by an incremental edit leaves only the wiring error.
 	c.change(uri, 2, map[string]any{"range": protocol.Range{Start: protocol.Position{Line: 0, Character: 33}, End: protocol.Position{Line: 0, Character: 37}}, "text": "bar"})
 	got = diagsOf(c.waitDiags(uri, 2))
-	if len(got) != 1 || got[0].code != "N201" {
+	if len(got) != 1 || got[0].code != "HMB201" {
 		t.Errorf("after the edit: %+v", got)
 	}
 	// A full-text change (no range) replaces everything: an empty file has no diagnostics, and []
@@ -186,12 +186,12 @@ func TestRelatedInformation(t *testing.T) {
 	ds := c.waitDiags(uri, 1)
 	var dup *protocol.Diagnostic
 	for i := range ds {
-		if ds[i].Code == "N202" {
+		if ds[i].Code == "HMB202" {
 			dup = &ds[i]
 		}
 	}
 	if dup == nil || len(dup.RelatedInformation) != 1 {
-		t.Fatalf("no N202 with related information in %+v", ds)
+		t.Fatalf("no HMB202 with related information in %+v", ds)
 	}
 	r := dup.RelatedInformation[0]
 	if r.Location.URI != uri || r.Location.Range.Start != (protocol.Position{Line: 0, Character: 7}) || r.Message != "first declared here" {

@@ -326,7 +326,7 @@ func TestListHints(t *testing.T) {
 }
 
 // TestSpecifyQuickFix offers, for an under-specified system, to add each value the solver names
-// (B501: "specify one of: V1 dp, A p, B p, C p"), where the user then types its value.
+// (HMB501: "specify one of: V1 dp, A p, B p, C p"), where the user then types its value.
 func TestSpecifyQuickFix(t *testing.T) {
 	src := "stream F { flow 2 kg/s; p 5 bar; T 200 C }\nstream A\nstream B { }\nvalve V1 {\n  in F\n  out A\n}\n" +
 		"valve V2 { in A; out B; }\nstream C { }\nheater H { in B; out C; dp 0 bar }\n"

@@ -17,19 +17,19 @@ const brokenSolveDir = "testdata/broken/solve"
 // A code on this list that a file does trigger fails TestBrokenCorpusCoversEveryCode, so the
 // list cannot go stale silently.
 var unreachableCodes = map[string]string{
-	// lang refuses a quality outside 0..1 itself (V303) and leaves the given out of the model,
+	// lang refuses a quality outside 0..1 itself (HMB303) and leaves the given out of the model,
 	// so the solver's own range check never sees one.
-	"S405": "quality outside 0..1 is V303 in the notation",
+	"HMB405": "quality outside 0..1 is HMB303 in the notation",
 	// The solver matches every given to an unknown before any balance (structure.go), and the
-	// state checks (S401-S403, S406) drop a stream's extra givens before they become equations,
-	// so the equation left over is always a balance: a wrong given shows as B503 instead.
-	"B502": "a redundant given is never the equation left over; it shows as B503",
+	// state checks (HMB401-HMB403, HMB406) drop a stream's extra givens before they become equations,
+	// so the equation left over is always a balance: a wrong given shows as HMB503 instead.
+	"HMB502": "a redundant given is never the equation left over; it shows as HMB503",
 	// The limit is 5 s of wall clock per file; a calc file big enough to reach it would make
 	// this test slow and its outcome depend on the machine.
-	"B512": "the 5 s solve limit is not reached by a file of test size",
+	"HMB512": "the 5 s solve limit is not reached by a file of test size",
 	// lang checks an expectation's property against the same stream properties and unit results
-	// the solver computes (N212), and drops the expectation when it is not one of them.
-	"E603": "an unknown expectation property is N212 in the notation",
+	// the solver computes (HMB212), and drops the expectation when it is not one of them.
+	"HMB603": "an unknown expectation property is HMB212 in the notation",
 }
 
 // renderBroken is hmb check's text output for one file, then the exact range of every
@@ -74,7 +74,7 @@ func TestBrokenSolveGolden(t *testing.T) {
 			fr := checkSource(name, src, nil)
 			solverCodes := 0
 			for _, d := range fr.diags {
-				if d.Code != "" && strings.ContainsAny(d.Code[:1], "SBE") {
+				if len(d.Code) == 6 && strings.ContainsAny(d.Code[3:4], "456") {
 					solverCodes++
 				}
 				// A message never shows a number that is not one.

@@ -119,7 +119,7 @@ func TestCheckJSONShape(t *testing.T) {
 			t.Errorf("bad diagnostic %+v", d)
 		}
 	}
-	for _, c := range []string{"V301", "V303", "N201"} {
+	for _, c := range []string{"HMB301", "HMB303", "HMB201"} {
 		if !codes[c] {
 			t.Errorf("faulty.hmb: no %s diagnostic in %v", c, codes)
 		}

@@ -40,7 +40,9 @@ type sarifText struct {
 
 type sarifRule struct {
 	ID                   string      `json:"id"`
+	Name                 string      `json:"name,omitempty"`
 	ShortDescription     sarifText   `json:"shortDescription"`
+	Help                 *sarifText  `json:"help,omitempty"`
 	DefaultConfiguration sarifConfig `json:"defaultConfiguration"`
 }
 
@@ -113,8 +115,12 @@ func writeSARIF(w io.Writer, files []*fileResult) error {
 		if c.Severity == 0 {
 			c.Severity = model.Error
 		}
-		driver.Rules = append(driver.Rules, sarifRule{ID: id, ShortDescription: sarifText{c.Summary},
-			DefaultConfiguration: sarifConfig{Level: sarifLevel(c.Severity)}})
+		rule := sarifRule{ID: id, Name: c.Name, ShortDescription: sarifText{c.Summary},
+			DefaultConfiguration: sarifConfig{Level: sarifLevel(c.Severity)}}
+		if c.Help != "" {
+			rule.Help = &sarifText{c.Help}
+		}
+		driver.Rules = append(driver.Rules, rule)
 	}
 	run := sarifRun{Tool: sarifTool{Driver: driver}, ColumnKind: "unicodeCodePoints", Results: []sarifResult{}}
 	for _, f := range files {

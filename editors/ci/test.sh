@@ -78,10 +78,10 @@ if sys.argv[2] == "clean":
     assert errors == [], errors
     sys.exit(0)
 # calcs/broken.hmb line 6: 'stream LP "process steam" { p 2 bragg }': the unit starts at column 33.
-hits = [r for r in results if r["ruleId"] == "V301"]
+hits = [r for r in results if r["ruleId"] == "HMB301"]
 assert len(hits) == 1, results
 r = hits[0]
-assert rules[r["ruleIndex"]]["id"] == "V301", rules
+assert rules[r["ruleIndex"]]["id"] == "HMB301", rules
 assert r["level"] == "error" and "bragg" in r["message"]["text"], r
 loc = r["locations"][0]["physicalLocation"]
 assert loc["artifactLocation"]["uri"] == "calcs/broken.hmb", loc
@@ -121,8 +121,8 @@ if out="$(cd "$tmp/broken" && PATH="${PATH#"$tmp/bin:"}" pre-commit run --all-fi
 else
   grep -q 'hmb fmt.*Failed' <<<"$out" && grep -q 'calcs/layout.hmb' <<<"$out" \
     && ok "pre-commit hmb-fmt fails on calcs/layout.hmb" || { bad "hmb-fmt output:"; echo "$out"; }
-  grep -q 'hmb check.*Failed' <<<"$out" && grep -q 'V301' <<<"$out" \
-    && ok "pre-commit hmb-check fails with V301" || { bad "hmb-check output:"; echo "$out"; }
+  grep -q 'hmb check.*Failed' <<<"$out" && grep -q 'HMB301' <<<"$out" \
+    && ok "pre-commit hmb-check fails with HMB301" || { bad "hmb-check output:"; echo "$out"; }
 fi
 (cd "$tmp/broken" && hmb fmt -w calcs/layout.hmb && rm calcs/broken.hmb && git_ add -A)
 if out="$(cd "$tmp/broken" && PATH="${PATH#"$tmp/bin:"}" pre-commit run --all-files 2>&1)"; then

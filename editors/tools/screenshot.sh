@@ -18,9 +18,9 @@ tmux -L "$sock" -f /dev/null new-session -d -x 112 -y 28 -e TERM=tmux-256color \
      --cmd 'lua require(\"hmb\").setup({ cmd = { \"$tmp/hmb\", \"lsp\" } })' \
      -c 'set number laststatus=0 noruler noshowmode' \
      -c 'hi NormalFloat ctermbg=238 ctermfg=255' demo.hmb"
-# Wait until the diagnostics are drawn (the E601 text appears as virtual text).
+# Wait until the diagnostics are drawn (the HMB601 text appears as virtual text).
 for _ in $(seq 1 100); do
-  if tmux -L "$sock" capture-pane -p | grep -q 'E601\|expectation failed'; then break; fi
+  if tmux -L "$sock" capture-pane -p | grep -q 'HMB601\|expectation failed'; then break; fi
   sleep 0.1
 done
 # Hover on LP where the valve sends it out (line 13, column 7).

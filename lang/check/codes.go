@@ -2,68 +2,68 @@ package check
 
 import "hmb/thermo/model"
 
-// Diagnostic codes of the checker: N2xx for names and wiring, V3xx for values, units and
-// settings. They are stable; quick fixes and suppression key on them.
+// Diagnostic codes of the checker: HMB2xx for names and wiring, HMB3xx for values, units
+// and settings. They are stable; quick fixes and suppression key on them.
 const (
-	CodeUndefined     = "N201"
-	CodeDuplicate     = "N202"
-	CodeTwoProducers  = "N203"
-	CodeTwoConsumers  = "N204"
-	CodeMissingPort   = "N205"
-	CodeExtraPort     = "N206"
-	CodeUnknownKind   = "N207"
-	CodeUnknownRole   = "N208"
-	CodeUnconnected   = "N209"
-	CodeSelfLoop      = "N210"
-	CodeNotAStream    = "N211"
-	CodeUnknownResult = "N212"
+	CodeUndefined     = "HMB201"
+	CodeDuplicate     = "HMB202"
+	CodeTwoProducers  = "HMB203"
+	CodeTwoConsumers  = "HMB204"
+	CodeMissingPort   = "HMB205"
+	CodeExtraPort     = "HMB206"
+	CodeUnknownKind   = "HMB207"
+	CodeUnknownRole   = "HMB208"
+	CodeUnconnected   = "HMB209"
+	CodeSelfLoop      = "HMB210"
+	CodeNotAStream    = "HMB211"
+	CodeUnknownResult = "HMB212"
 
-	CodeUnknownUnit    = "V301"
-	CodeDimension      = "V302"
-	CodeFraction       = "V303"
-	CodeImpossible     = "V304"
-	CodeDuplicateGiven = "V305"
-	CodeUnknownParam   = "V306"
-	CodeNoUnit         = "V307"
-	CodeUnknownSetting = "V308"
-	CodeSettingTwice   = "V309"
-	CodeSettingValue   = "V310"
-	CodeFluid          = "V311"
-	CodeTolerance      = "V312"
-	CodeRange          = "V313"
-	CodeEntryForm      = "V314"
-	CodeStreamList     = "V315"
-	CodeNegativeDrop   = "V316"
+	CodeUnknownUnit    = "HMB301"
+	CodeDimension      = "HMB302"
+	CodeFraction       = "HMB303"
+	CodeImpossible     = "HMB304"
+	CodeDuplicateGiven = "HMB305"
+	CodeUnknownParam   = "HMB306"
+	CodeNoUnit         = "HMB307"
+	CodeUnknownSetting = "HMB308"
+	CodeSettingTwice   = "HMB309"
+	CodeSettingValue   = "HMB310"
+	CodeFluid          = "HMB311"
+	CodeTolerance      = "HMB312"
+	CodeRange          = "HMB313"
+	CodeEntryForm      = "HMB314"
+	CodeStreamList     = "HMB315"
+	CodeNegativeDrop   = "HMB316"
 )
 
 // Codes documents the checker's diagnostic codes.
 var Codes = []model.CodeInfo{
-	{Code: CodeUndefined, Severity: model.Error, Summary: "name used but not declared (streams need a stream statement)"},
-	{Code: CodeDuplicate, Severity: model.Error, Summary: "name declared twice (streams and units share one namespace)"},
-	{Code: CodeTwoProducers, Severity: model.Error, Summary: "stream leaves two units"},
-	{Code: CodeTwoConsumers, Severity: model.Error, Summary: "stream enters two units"},
-	{Code: CodeMissingPort, Severity: model.Error, Summary: "unit without a stream for one of its roles"},
-	{Code: CodeExtraPort, Severity: model.Error, Summary: "more streams for a role than the unit kind takes"},
-	{Code: CodeUnknownKind, Severity: model.Error, Summary: "unknown unit kind"},
-	{Code: CodeUnknownRole, Severity: model.Error, Summary: "unknown port role for the unit kind"},
-	{Code: CodeUnconnected, Severity: model.Warning, Summary: "stream connected to no unit"},
-	{Code: CodeSelfLoop, Severity: model.Error, Summary: "stream both enters and leaves the same unit"},
-	{Code: CodeNotAStream, Severity: model.Error, Summary: "a unit's name where a stream's is needed"},
-	{Code: CodeUnknownResult, Severity: model.Error, Summary: "expectation on a property or result the stream or unit does not have"},
-	{Code: CodeUnknownUnit, Severity: model.Error, Summary: "unknown unit spelling"},
-	{Code: CodeDimension, Severity: model.Error, Summary: "unit of the wrong dimension (a flow unit for a pressure)"},
-	{Code: CodeFraction, Severity: model.Error, Summary: "quality or efficiency outside 0..1 (0 %..100 %)"},
-	{Code: CodeImpossible, Severity: model.Error, Summary: "absolute pressure, absolute temperature or flow below zero"},
-	{Code: CodeDuplicateGiven, Severity: model.Error, Summary: "property or parameter given twice in one block"},
-	{Code: CodeUnknownParam, Severity: model.Error, Summary: "unknown stream property or unit parameter"},
-	{Code: CodeNoUnit, Severity: model.Error, Summary: "number without the unit its quantity needs"},
-	{Code: CodeUnknownSetting, Severity: model.Error, Summary: "unknown top-level setting"},
-	{Code: CodeSettingTwice, Severity: model.Error, Summary: "setting given twice, or atmosphere together with elevation"},
-	{Code: CodeSettingValue, Severity: model.Error, Summary: "setting with a value it does not take"},
-	{Code: CodeFluid, Severity: model.Error, Summary: "fluid other than water (steam)"},
-	{Code: CodeTolerance, Severity: model.Error, Summary: "tolerance below zero, or 'within' on a comparison other than ="},
-	{Code: CodeRange, Severity: model.Error, Summary: "number too large to represent"},
-	{Code: CodeEntryForm, Severity: model.Error, Summary: "names where a value is needed, or a value where names are"},
-	{Code: CodeStreamList, Severity: model.Error, Summary: "label or block on a list of several stream names"},
-	{Code: CodeNegativeDrop, Severity: model.Error, Summary: "pressure drop (dp, dp_hot, dp_cold) below zero"},
+	{Code: CodeUndefined, Name: "undeclared-name", Severity: model.Error, Summary: "name used but not declared (streams need a stream statement)", Help: "Declare the stream with a stream statement (the quick fix does it), or correct the spelling."},
+	{Code: CodeDuplicate, Name: "duplicate-name", Severity: model.Error, Summary: "name declared twice (streams and units share one namespace)", Help: "Rename one of the two declarations; streams and units share one namespace."},
+	{Code: CodeTwoProducers, Name: "stream-leaves-two-units", Severity: model.Error, Summary: "stream leaves two units", Help: "A stream is a state point between two units: split it with a splitter, or give each unit its own stream."},
+	{Code: CodeTwoConsumers, Name: "stream-enters-two-units", Severity: model.Error, Summary: "stream enters two units", Help: "A stream can feed only one unit: add a splitter, or give each unit its own stream."},
+	{Code: CodeMissingPort, Name: "missing-port", Severity: model.Error, Summary: "unit without a stream for one of its roles", Help: "Connect a stream to every role of the unit kind (the message names the role)."},
+	{Code: CodeExtraPort, Name: "extra-port", Severity: model.Error, Summary: "more streams for a role than the unit kind takes", Help: "The role takes one stream; use a mixer or splitter for several."},
+	{Code: CodeUnknownKind, Name: "unknown-unit-kind", Severity: model.Error, Summary: "unknown unit kind", Help: "Use one of the unit kinds in README.md (the message suggests the nearest)."},
+	{Code: CodeUnknownRole, Name: "unknown-port-role", Severity: model.Error, Summary: "unknown port role for the unit kind", Help: "Use one of the roles the unit kind has (the message lists them)."},
+	{Code: CodeUnconnected, Name: "unconnected-stream", Severity: model.Warning, Summary: "stream connected to no unit", Help: "Connect the stream to a unit, or delete it; it takes part in no balance."},
+	{Code: CodeSelfLoop, Name: "self-loop", Severity: model.Error, Summary: "stream both enters and leaves the same unit", Help: "A stream cannot both enter and leave one unit; give the outlet its own stream."},
+	{Code: CodeNotAStream, Name: "unit-where-stream-expected", Severity: model.Error, Summary: "a unit's name where a stream's is needed", Help: "A port takes a stream's name; this name belongs to a unit."},
+	{Code: CodeUnknownResult, Name: "unknown-result", Severity: model.Error, Summary: "expectation on a property or result the stream or unit does not have", Help: "Expect on a property or result the stream or unit has (README.md lists them)."},
+	{Code: CodeUnknownUnit, Name: "unknown-unit-spelling", Severity: model.Error, Summary: "unknown unit spelling", Help: "Use a unit spelling hmb knows (the message suggests the nearest and lists accepted ones)."},
+	{Code: CodeDimension, Name: "wrong-dimension", Severity: model.Error, Summary: "unit of the wrong dimension (a flow unit for a pressure)", Help: "The unit measures a different quantity from the one the property or parameter needs."},
+	{Code: CodeFraction, Name: "fraction-out-of-range", Severity: model.Error, Summary: "quality or efficiency outside 0..1 (0 %..100 %)", Help: "A quality or efficiency lies in 0..1 (0 % to 100 %)."},
+	{Code: CodeImpossible, Name: "negative-absolute-value", Severity: model.Error, Summary: "absolute pressure, absolute temperature or flow below zero", Help: "An absolute pressure, absolute temperature or mass flow cannot be below zero; check the number and whether a gauge unit was meant."},
+	{Code: CodeDuplicateGiven, Name: "duplicate-given", Severity: model.Error, Summary: "property or parameter given twice in one block", Help: "State each property or parameter once per block."},
+	{Code: CodeUnknownParam, Name: "unknown-property", Severity: model.Error, Summary: "unknown stream property or unit parameter", Help: "Use a stream property (flow p T h s x fluid) or a parameter of the unit kind."},
+	{Code: CodeNoUnit, Name: "missing-unit", Severity: model.Error, Summary: "number without the unit its quantity needs", Help: "Write the unit after the number; hmb never guesses units."},
+	{Code: CodeUnknownSetting, Name: "unknown-setting", Severity: model.Error, Summary: "unknown top-level setting", Help: "Use one of the top-level settings documented in README.md."},
+	{Code: CodeSettingTwice, Name: "duplicate-setting", Severity: model.Error, Summary: "setting given twice, or atmosphere together with elevation", Help: "State each setting once; atmosphere and elevation both fix the site pressure, so give one."},
+	{Code: CodeSettingValue, Name: "bad-setting-value", Severity: model.Error, Summary: "setting with a value it does not take", Help: "The setting takes a different kind of value (the message says which)."},
+	{Code: CodeFluid, Name: "unsupported-fluid", Severity: model.Error, Summary: "fluid other than water (steam)", Help: "hmb computes water and steam only (IAPWS-IF97)."},
+	{Code: CodeTolerance, Name: "bad-tolerance", Severity: model.Error, Summary: "tolerance below zero, or 'within' on a comparison other than =", Help: "A tolerance is zero or more, and `within` applies only to `=`."},
+	{Code: CodeRange, Name: "number-out-of-range", Severity: model.Error, Summary: "number too large to represent", Help: "The number is too large to represent as a double."},
+	{Code: CodeEntryForm, Name: "names-versus-value", Severity: model.Error, Summary: "names where a value is needed, or a value where names are", Help: "This entry takes a value, not stream names (or names, not a value)."},
+	{Code: CodeStreamList, Name: "list-with-label", Severity: model.Error, Summary: "label or block on a list of several stream names", Help: "A label or block applies to one stream; declare the streams separately."},
+	{Code: CodeNegativeDrop, Name: "negative-pressure-drop", Severity: model.Error, Summary: "pressure drop (dp, dp_hot, dp_cold) below zero", Help: "A pressure drop is inlet minus outlet pressure and cannot be below zero."},
 }

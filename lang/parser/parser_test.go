@@ -41,43 +41,43 @@ func TestDiagnostics(t *testing.T) {
 		want      []want
 	}{
 		{"control character", "stream A { p 1 bar }\x01",
-			[]want{{"P101", "\x01", "unexpected control character", ""}}},
+			[]want{{"HMB101", "\x01", "unexpected control character", ""}}},
 		{"invalid UTF-8", "stream A { p 1 bar \xff }",
-			[]want{{"P101", "\xff", "invalid UTF-8 encoding", ""}}},
+			[]want{{"HMB101", "\xff", "invalid UTF-8 encoding", ""}}},
 		{"string not closed", "stream A \"main steam\nstream B",
-			[]want{{"P102", "\"main steam", "string not terminated before the end of the line", ""}}},
+			[]want{{"HMB102", "\"main steam", "string not terminated before the end of the line", ""}}},
 		{"statement starting with a number", "12 x\nstream A",
-			[]want{{"P103", "12 x", "unexpected number \"12\": a statement starts with stream, expect, a unit kind or a setting", ""}}},
+			[]want{{"HMB103", "12 x", "unexpected number \"12\": a statement starts with stream, expect, a unit kind or a setting", ""}}},
 		{"extra number in an entry", "stream A {\n  T 100 C 5\n}",
-			[]want{{"P103", "C |5", "unexpected number \"5\" in entry: expected the end of the line", ""}}},
+			[]want{{"HMB103", "C |5", "unexpected number \"5\" in entry: expected the end of the line", ""}}},
 		{"two tolerances", "stream A { T 300 F ± 2 F ± 3 F }",
-			[]want{{"P103", "2 F |± 3 F", "unexpected \"±\" in entry: expected the end of the line", ""}}},
+			[]want{{"HMB103", "2 F |± 3 F", "unexpected \"±\" in entry: expected the end of the line", ""}}},
 		{"tolerance without its amount", "stream A { p 3 bar ± }",
-			[]want{{"P103", "±|", "entry ends too early: expected a number", ""}}},
+			[]want{{"HMB103", "±|", "entry ends too early: expected a number", ""}}},
 		{"stream keyword alone", "stream",
-			[]want{{"P103", "stream|", "stream declaration ends too early: expected a name", ""}}},
+			[]want{{"HMB103", "stream|", "stream declaration ends too early: expected a name", ""}}},
 		{"list of streams ending in a comma", "stream A,",
-			[]want{{"P103", "A,|", "stream declaration ends too early: expected a name", ""}}},
+			[]want{{"HMB103", "A,|", "stream declaration ends too early: expected a name", ""}}},
 		{"unit without a name", "valve { in A }",
-			[]want{{"P103", "{", "unexpected \"{\" in unit declaration: expected a name", ""}}},
+			[]want{{"HMB103", "{", "unexpected \"{\" in unit declaration: expected a name", ""}}},
 		{"two labels on a unit", "valve V \"x\" \"y\" { }",
-			[]want{{"P103", "\"y\" {", "unexpected string \"\\\"y\\\"\" in unit declaration: expected {", ""}}},
+			[]want{{"HMB103", "\"y\" {", "unexpected string \"\\\"y\\\"\" in unit declaration: expected {", ""}}},
 		{"expectation without a comparison", "expect S1 x",
-			[]want{{"P103", "S1 x|", "expectation ends too early: expected =, <, <=, >, >=", ""}}},
+			[]want{{"HMB103", "S1 x|", "expectation ends too early: expected =, <, <=, >, >=", ""}}},
 		{"expectation with ==", "expect S1 x == 3",
-			[]want{{"P103", "x =|= 3", "unexpected \"=\" in expectation: expected a number", ""}}},
+			[]want{{"HMB103", "x =|= 3", "unexpected \"=\" in expectation: expected a number", ""}}},
 		{"within without an amount", "expect S1 x = 0.9 within",
-			[]want{{"P103", "within|", "expectation ends too early: expected a number", ""}}},
+			[]want{{"HMB103", "within|", "expectation ends too early: expected a number", ""}}},
 		{"block not closed before the next statement", "stream A { p 3 bar\nvalve V { in A; out B }",
-			[]want{{"P104", "{", "block of stream A is not closed: missing }", "bar\n|"}}},
+			[]want{{"HMB104", "{", "block of stream A is not closed: missing }", "bar\n|"}}},
 		{"block not closed at the end", "valve V1 { in A",
-			[]want{{"P104", "{", "block of valve V1 is not closed: missing }", ""}}},
+			[]want{{"HMB104", "{", "block of valve V1 is not closed: missing }", ""}}},
 		{"stray brace", "stream A { p 3 bar } }",
-			[]want{{"P105", "bar } |}", "} with no block open", ""}}},
+			[]want{{"HMB105", "bar } |}", "} with no block open", ""}}},
 		{"key without a value in a block", "stream D {\n  p\n  T 100 C\n}",
-			[]want{{"P106", "p", "p has no value after it", ""}}},
+			[]want{{"HMB106", "p", "p has no value after it", ""}}},
 		{"setting without a value", "title",
-			[]want{{"P106", "title", "title has no value after it", ""}}},
+			[]want{{"HMB106", "title", "title has no value after it", ""}}},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -130,22 +130,22 @@ func TestRecovery(t *testing.T) {
 	}{
 		{"broken statement between two streams",
 			"stream A { p 1 bar }\n12 x\nstream B { T 20 C }",
-			[]string{"P103"}, "stream A [p] | bad | stream B [T]"},
+			[]string{"HMB103"}, "stream A [p] | bad | stream B [T]"},
 		{"broken entry inside a block",
 			"stream A {\n  p 1 bar bar\n  T 20 C\n}\nvalve V { in A; out B }",
-			[]string{"P103"}, "stream A [bad T] | valve V [in out]"},
+			[]string{"HMB103"}, "stream A [bad T] | valve V [in out]"},
 		{"unclosed block closed by the next statement",
 			"stream A { p 1 bar\nvalve V { in A; out B }\nexpect B x = 1",
-			[]string{"P104"}, "stream A [p] | valve V [in out] | expect B x"},
+			[]string{"HMB104"}, "stream A [p] | valve V [in out] | expect B x"},
 		{"unclosed string keeps the block",
 			"stream A \"main { p 1 bar }\nstream B { T 20 C }",
-			[]string{"P102"}, "stream A | stream B [T]"},
+			[]string{"HMB102"}, "stream A | stream B [T]"},
 		{"stray brace skipped",
 			"}\nstream A { p 1 bar }",
-			[]string{"P105"}, "stream A [p]"},
+			[]string{"HMB105"}, "stream A [p]"},
 		{"half-typed last statement",
 			"stream A { p 1 bar }\nvalve V { in A; out",
-			[]string{"P104", "P106"}, "stream A [p] | valve V [in bad]"},
+			[]string{"HMB104", "HMB106"}, "stream A [p] | valve V [in bad]"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -210,13 +210,13 @@ func TestTooManyErrors(t *testing.T) {
 		t.Fatalf("got %d diagnostics, want %d", len(diags), parser.MaxErrors+1)
 	}
 	for i, d := range diags[:parser.MaxErrors] {
-		if d.Code != "P105" || d.Span.Start != 2*i {
-			t.Fatalf("diagnostic %d: %s at %d, want P105 at %d", i, d.Code, d.Span.Start, 2*i)
+		if d.Code != "HMB105" || d.Span.Start != 2*i {
+			t.Fatalf("diagnostic %d: %s at %d, want HMB105 at %d", i, d.Code, d.Span.Start, 2*i)
 		}
 	}
 	last := diags[parser.MaxErrors]
 	at := 2 * parser.MaxErrors
-	if last.Code != "P107" || last.Span != (model.Span{Start: at, End: at}) || last.Message != "7 more syntax errors from here on are not reported" {
+	if last.Code != "HMB107" || last.Span != (model.Span{Start: at, End: at}) || last.Message != "7 more syntax errors from here on are not reported" {
 		t.Errorf("last diagnostic %s %v %q", last.Code, last.Span, last.Message)
 	}
 	if got := summarise(f); got != "stream A [p]" {

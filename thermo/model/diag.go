@@ -54,7 +54,9 @@ type Spec struct {
 
 // CodeInfo documents one diagnostic code.
 type CodeInfo struct {
-	Code     string
+	Code     string // "HMB" and three digits; the hundreds name the stage (1 parse ... 6 expectations)
+	Name     string // a readable rule name, kebab-case, unique: "negative-flow"
 	Severity Severity
-	Summary  string
+	Summary  string // one line: what the code reports
+	Help     string // what to do about it
 }

@@ -42,7 +42,7 @@ type ExpectResult struct {
 }
 
 // Expectations judges every expectation of the model. The verdict is the solver's: an
-// expectation fails exactly when the solver reported it (codes E601 to E603) at its span, so the
+// expectation fails exactly when the solver reported it (codes HMB601 to HMB603) at its span, so the
 // page and hmb check cannot disagree.
 func Expectations(in *Input) []ExpectResult {
 	if in == nil || in.Model == nil {

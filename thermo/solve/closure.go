@@ -11,7 +11,7 @@ import (
 // overSpecified checks every equation the matching left over. Each one is redundant: all its
 // unknowns are fixed without it. Within tolerance it is a closure (reported when two or more
 // independent givens meet in it, so a closed loop's identity is not reported); beyond, a given
-// conflicts (B502) or a balance does not close (B503).
+// conflicts (HMB502) or a balance does not close (HMB503).
 func (s *solveRun) overSpecified() {
 	sys := s.b.sys
 	for e := range sys.Eqs {

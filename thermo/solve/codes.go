@@ -4,56 +4,56 @@ import "hmb/thermo/model"
 
 // Diagnostic codes of the solver. They are stable: quick fixes and suppressions key on them.
 const (
-	CodeStateOverSpecified = "S401"
-	CodeStateInconsistent  = "S402"
-	CodeStateAmbiguous     = "S403"
-	CodeOutsideIF97        = "S404"
-	CodeQualityRange       = "S405"
-	CodeNoDome             = "S406"
-	CodeNegativeFlow       = "S407"
+	CodeStateOverSpecified = "HMB401"
+	CodeStateInconsistent  = "HMB402"
+	CodeStateAmbiguous     = "HMB403"
+	CodeOutsideIF97        = "HMB404"
+	CodeQualityRange       = "HMB405"
+	CodeNoDome             = "HMB406"
+	CodeNegativeFlow       = "HMB407"
 
-	CodeUnderSpecified = "B501"
-	CodeConflict       = "B502"
-	CodeNotClosed      = "B503"
-	CodeClosure        = "B504"
-	CodeNoConvergence  = "B505"
-	CodeEntropy        = "B506"
-	CodeEfficiency     = "B507"
-	CodeTempCross      = "B508"
-	CodePumpInlet      = "B509"
-	CodeWetExhaust     = "B510"
-	CodeStructure      = "B511"
-	CodeTimeout        = "B512"
+	CodeUnderSpecified = "HMB501"
+	CodeConflict       = "HMB502"
+	CodeNotClosed      = "HMB503"
+	CodeClosure        = "HMB504"
+	CodeNoConvergence  = "HMB505"
+	CodeEntropy        = "HMB506"
+	CodeEfficiency     = "HMB507"
+	CodeTempCross      = "HMB508"
+	CodePumpInlet      = "HMB509"
+	CodeWetExhaust     = "HMB510"
+	CodeStructure      = "HMB511"
+	CodeTimeout        = "HMB512"
 
-	CodeExpectFailed   = "E601"
-	CodeExpectUnsolved = "E602"
-	CodeExpectUnknown  = "E603"
+	CodeExpectFailed   = "HMB601"
+	CodeExpectUnsolved = "HMB602"
+	CodeExpectUnknown  = "HMB603"
 )
 
 // Codes documents every code the solver reports.
 var Codes = []model.CodeInfo{
-	{Code: CodeStateOverSpecified, Severity: model.Error, Summary: "a stream gives more than two intensive properties (p, T, h, s, x) of a single-phase state"},
-	{Code: CodeStateInconsistent, Severity: model.Error, Summary: "a stream gives p, T and quality, but T is not the saturation temperature at p"},
-	{Code: CodeStateAmbiguous, Severity: model.Error, Summary: "a stream gives p and T on the saturation line; its quality is needed to fix the state"},
-	{Code: CodeOutsideIF97, Severity: model.Error, Summary: "a given or solved state lies outside the range of IAPWS-IF97"},
-	{Code: CodeQualityRange, Severity: model.Error, Summary: "a given quality is outside 0..1"},
-	{Code: CodeNoDome, Severity: model.Error, Summary: "a quality is given at or above the critical pressure, where there is no two-phase region"},
-	{Code: CodeNegativeFlow, Severity: model.Warning, Summary: "a solved mass flow is negative: the stream runs against its stated direction"},
+	{Code: CodeStateOverSpecified, Name: "state-over-specified", Severity: model.Error, Summary: "a stream gives more than two intensive properties (p, T, h, s, x) of a single-phase state", Help: "A single-phase state is fixed by two intensive properties; drop the extra given."},
+	{Code: CodeStateInconsistent, Name: "state-inconsistent", Severity: model.Error, Summary: "a stream gives p, T and quality, but T is not the saturation temperature at p", Help: "With p, T and a quality given, T must be the saturation temperature at p."},
+	{Code: CodeStateAmbiguous, Name: "state-ambiguous", Severity: model.Error, Summary: "a stream gives p and T on the saturation line; its quality is needed to fix the state", Help: "p and T on the saturation line do not fix a state; give the quality x (or h) instead of T."},
+	{Code: CodeOutsideIF97, Name: "outside-iapws-if97", Severity: model.Error, Summary: "a given or solved state lies outside the range of IAPWS-IF97", Help: "The state lies outside the range of IAPWS-IF97 (273.15 K to 2273.15 K, up to 100 MPa; above 1073.15 K only to 50 MPa)."},
+	{Code: CodeQualityRange, Name: "quality-out-of-range", Severity: model.Error, Summary: "a given quality is outside 0..1", Help: "A quality lies in 0..1."},
+	{Code: CodeNoDome, Name: "no-two-phase-region", Severity: model.Error, Summary: "a quality is given at or above the critical pressure, where there is no two-phase region", Help: "At or above the critical pressure (22.064 MPa) there is no two-phase region, so a quality has no meaning."},
+	{Code: CodeNegativeFlow, Name: "negative-flow", Severity: model.Warning, Summary: "a solved mass flow is negative: the stream runs against its stated direction", Help: "A solved flow runs against its stated direction; the givens named in the message force it."},
 
-	{Code: CodeUnderSpecified, Severity: model.Error, Summary: "the system is under-specified: some unknowns are fixed by no given or balance"},
-	{Code: CodeConflict, Severity: model.Error, Summary: "a given conflicts with the value the other givens and the balances fix"},
-	{Code: CodeNotClosed, Severity: model.Error, Summary: "a redundant balance does not close within the tolerance"},
-	{Code: CodeClosure, Severity: model.Info, Summary: "a redundant balance or given closes within the tolerance"},
-	{Code: CodeNoConvergence, Severity: model.Error, Summary: "the solver could not find values satisfying a group of equations"},
-	{Code: CodeEntropy, Severity: model.Error, Summary: "a unit generates negative entropy: the process is impossible"},
-	{Code: CodeEfficiency, Severity: model.Error, Summary: "an isentropic or boiler efficiency is outside 0..1"},
-	{Code: CodeTempCross, Severity: model.Error, Summary: "temperature cross in a counterflow exchanger: the hot side is colder than the cold side at an end"},
-	{Code: CodePumpInlet, Severity: model.Warning, Summary: "a pump inlet is not liquid"},
-	{Code: CodeWetExhaust, Severity: model.Warning, Summary: "a turbine exhaust has more than 10 % moisture (common practice, no source)"},
-	{Code: CodeStructure, Severity: model.Error, Summary: "the model cannot be turned into equations (a port naming no stream, an unsupported fluid)"},
-	{Code: CodeTimeout, Severity: model.Error, Summary: "solving stopped at the time limit or on cancellation"},
+	{Code: CodeUnderSpecified, Name: "under-specified", Severity: model.Error, Summary: "the system is under-specified: some unknowns are fixed by no given or balance", Help: "Some unknowns are fixed by no given or balance; state one of the values the message lists."},
+	{Code: CodeConflict, Name: "conflicting-given", Severity: model.Error, Summary: "a given conflicts with the value the other givens and the balances fix", Help: "A given disagrees with the value the other givens and the balances fix; drop one or correct it."},
+	{Code: CodeNotClosed, Name: "balance-not-closed", Severity: model.Error, Summary: "a redundant balance does not close within the tolerance", Help: "A balance that the givens over-determine does not close within the tolerance."},
+	{Code: CodeClosure, Name: "balance-closed", Severity: model.Info, Summary: "a redundant balance or given closes within the tolerance", Help: "A redundant balance or given closes within the tolerance (information)."},
+	{Code: CodeNoConvergence, Name: "no-convergence", Severity: model.Error, Summary: "the solver could not find values satisfying a group of equations", Help: "No values satisfy the group of equations named in the message; check the givens it lists."},
+	{Code: CodeEntropy, Name: "negative-entropy-generation", Severity: model.Error, Summary: "a unit generates negative entropy: the process is impossible", Help: "The unit would destroy entropy: the process described is impossible."},
+	{Code: CodeEfficiency, Name: "efficiency-out-of-range", Severity: model.Error, Summary: "an isentropic or boiler efficiency is outside 0..1", Help: "A solved isentropic or boiler efficiency lies outside 0..1: the process described is impossible."},
+	{Code: CodeTempCross, Name: "temperature-cross", Severity: model.Error, Summary: "temperature cross in a counterflow exchanger: the hot side is colder than the cold side at an end", Help: "The hot side is colder than the cold side somewhere in the exchanger: heat cannot flow that way."},
+	{Code: CodePumpInlet, Name: "pump-inlet-not-liquid", Severity: model.Warning, Summary: "a pump inlet is not liquid", Help: "A pump inlet should be liquid; a wet or vapour inlet cavitates."},
+	{Code: CodeWetExhaust, Name: "wet-turbine-exhaust", Severity: model.Warning, Summary: "a turbine exhaust has more than 10 % moisture (common practice, no source)", Help: "More than 10 % moisture at a turbine exhaust erodes the last blades (common practice, no source)."},
+	{Code: CodeStructure, Name: "unsolvable-model", Severity: model.Error, Summary: "the model cannot be turned into equations (a port naming no stream, an unsupported fluid)", Help: "The model cannot be turned into equations."},
+	{Code: CodeTimeout, Name: "solver-time-limit", Severity: model.Error, Summary: "solving stopped at the time limit or on cancellation", Help: "Solving stopped at the time limit or on cancellation; the values shown are incomplete."},
 
-	{Code: CodeExpectFailed, Severity: model.Error, Summary: "an expectation does not hold for the solved values"},
-	{Code: CodeExpectUnsolved, Severity: model.Error, Summary: "an expectation cannot be checked: the value it names was not solved"},
-	{Code: CodeExpectUnknown, Severity: model.Error, Summary: "an expectation names a property the solver does not compute"},
+	{Code: CodeExpectFailed, Name: "expectation-failed", Severity: model.Error, Summary: "an expectation does not hold for the solved values", Help: "An expectation does not hold for the solved values."},
+	{Code: CodeExpectUnsolved, Name: "expectation-unsolved", Severity: model.Error, Summary: "an expectation cannot be checked: the value it names was not solved", Help: "The value the expectation names was not solved."},
+	{Code: CodeExpectUnknown, Name: "expectation-unknown-property", Severity: model.Error, Summary: "an expectation names a property the solver does not compute", Help: "The expectation names a property the solver does not compute."},
 }

@@ -645,7 +645,7 @@ func TestEnergyClosureAgainstDuty(t *testing.T) {
 	d := findDiag(r, CodeClosure)
 	if d == nil || !strings.Contains(d.Message, "duty 320 kW given, the stream states imply 314.22 kW (1.81 %)") {
 		logDiags(t, r)
-		t.Errorf("no B504 setting the given duty against the implied one")
+		t.Errorf("no HMB504 setting the given duty against the implied one")
 	}
 }
 
@@ -656,7 +656,7 @@ func TestSpecifyList(t *testing.T) {
 		unit("V1", "valve", ports("in S1", "out S2")), unit("H", "heater", ports("in S2", "out S3")))
 	d := findDiag(solveModel(t, m), CodeUnderSpecified)
 	if d == nil {
-		t.Fatal("no B501")
+		t.Fatal("no HMB501")
 	}
 	want := []model.Spec{{Name: "S1", Prop: "flow"}, {Name: "S2", Prop: "flow"}, {Name: "S3", Prop: "flow"}}
 	if len(d.Specify) < len(want) || !slices.Equal(d.Specify[:len(want)], want) {

@@ -86,14 +86,14 @@ for _, d in ipairs(diags) do
   log(('     diagnostic %d:%d %s %s'):format(d.lnum + 1, d.col + 1, tostring(d.code), d.message))
 end
 -- Line 6: "p 10 bra" misspells bar; line 10: "out LQ" names an undeclared stream.
-local unit = find('V301')
+local unit = find('HMB301')
 check(unit ~= nil and unit.lnum == 5 and unit.col == 34 and unit.end_col == 37
   and unit.severity == vim.diagnostic.severity.ERROR and unit.message:find('bra', 1, true) ~= nil,
-  'V301 error on the unit spelling "bra" at 6:35-6:38')
-local undef = find('N201')
+  'HMB301 error on the unit spelling "bra" at 6:35-6:38')
+local undef = find('HMB201')
 check(undef ~= nil and undef.lnum == 9 and undef.col == 6 and undef.end_col == 8
   and undef.severity == vim.diagnostic.severity.ERROR and undef.message:find('LQ', 1, true) ~= nil,
-  'N201 error on the undeclared stream LQ at 10:7-10:9')
+  'HMB201 error on the undeclared stream LQ at 10:7-10:9')
 
 -- Hover over the stream HP where the valve takes it in (line 9, column 6).
 local function hover(line, character)
