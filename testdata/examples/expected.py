@@ -220,28 +220,28 @@ def reheat_rankine():
     }
 
 
-def regenerative_rankine():
-    ms = pt(80 * BAR, C(480), 20.0)
-    x, hpt = turbine(ms, 7 * BAR, 0.85)
-    fw1 = px(x.p, 0, ms.m)  # the deaerator runs at its inlets' pressure, 7 bar
+def waste_to_energy_cycle():
+    ms = pt(42 * BAR, C(405), 28.0)
+    x, hps = turbine(ms, 3.6 * BAR, 0.81)
+    fw1 = px(x.p, 0, ms.m)  # the deaerator runs at its inlets' pressure, 3.6 bar
     # Both turbine and pump outlets depend only on their inlets' state, not on the flow: work the
     # states first, then the split from the deaerator's balances:
     #   m_bld + m_cn2 = m_fw1,  m_bld h_x + m_cn2 h_cn2 = m_fw1 h_fw1
-    ex_state, _ = turbine(Stream(x.w, 1.0), 0.1 * BAR, 0.85)
+    ex_state, _ = turbine(Stream(x.w, 1.0), 0.14 * BAR, 0.78)
     cn_state = px(ex_state.p, 0, 1.0)
-    cn2_state, _ = pump(cn_state, 7 * BAR, 0.80)
+    cn2_state, _ = pump(cn_state, 3.6 * BAR, 0.70)
     m_lp = ms.m * (x.h - fw1.h) / (x.h - cn2_state.h)
     bld = Stream(x.w, ms.m - m_lp)
     lpi = Stream(x.w, m_lp)
-    exh, lpt = turbine(lpi, 0.1 * BAR, 0.85)
+    exh, lps = turbine(lpi, 0.14 * BAR, 0.78)
     cn = px(exh.p, 0, m_lp)
-    cn2, cep = pump(cn, 7 * BAR, 0.80)
-    fw2, bfp = pump(fw1, ms.p, 0.80)  # the steam generator has no stated pressure drop
+    cn2, cep = pump(cn, 3.6 * BAR, 0.70)
+    fw2, bfp = pump(fw1, ms.p + 3 * BAR, 0.76)  # the boiler's 3 bar drop sets the discharge
     return {"MS": ms, "X": x, "BLD": bld, "LPI": lpi, "EXH": exh, "CN": cn, "CN2": cn2, "FW1": fw1, "FW2": fw2}, {
-        "HPT": hpt,
-        "SP": {"S_gen": sflow([bld, lpi], [x])},
-        "LPT": lpt,
-        "CD": {"Q": exh.m * (exh.h - cn.h), "S_gen": heated_sgen(exh, cn)},
+        "HPS": hps,
+        "TEE": {"S_gen": sflow([bld, lpi], [x])},
+        "LPS": lps,
+        "ACC": {"Q": exh.m * (exh.h - cn.h), "S_gen": heated_sgen(exh, cn)},
         "CEP": cep,
         "DA": {"S_gen": sflow([fw1], [bld, cn2])},
         "BFP": bfp,
@@ -249,16 +249,16 @@ def regenerative_rankine():
     }
 
 
-def closed_fwh():
-    ext = pt(20 * BAR, C(300))
-    drn = px(ext.p, 0)
-    fwi = pt(80 * BAR, C(150), 40.0)
-    fwo = pt(fwi.p - 1 * BAR, C(205), fwi.m)
+def hp_feed_heater():
+    ext = pt(14 * BAR, C(265))
+    drn = px(ext.p, 0)  # the drain leaves saturated at the shell pressure
+    fwi = pt(52 * BAR, C(138), 24.0)
+    fwo = pt(fwi.p - 0.6 * BAR, C(186), fwi.m)
     q = fwi.m * (fwo.h - fwi.h)
     ext.m = drn.m = q / (ext.h - drn.h)
-    drf = ph(6 * BAR, drn.h, drn.m)
+    drf = ph(4.2 * BAR, drn.h, drn.m)
     return {"EXT": ext, "DRN": drn, "DRF": drf, "FWI": fwi, "FWO": fwo}, {
-        "FWH": {"Q": q, "S_gen": sflow([drn, fwo], [ext, fwi])},
+        "HPH": {"Q": q, "S_gen": sflow([drn, fwo], [ext, fwi])},
         "LCV": {"S_gen": sflow([drf], [drn])},
     }
 
@@ -281,25 +281,37 @@ def mixer(ins, p_out, loss=0.0):
     return o, {"S_gen": sflow([o], ins) + loss / T0}
 
 
-def mixing_wet():
-    st = px(3 * BAR, 1, 2.0)
-    cw = pt(3 * BAR, C(20), 1.5)
-    mx, mc = mixer([st, cw], 3 * BAR)
-    return {"ST": st, "CW": cw, "MX": mx}, {"MC": mc}
+def steam_header():
+    pb = pt(11 * BAR, C(330), 6.5)
+    whb = px(11 * BAR, 0.94, 1.6)
+    hdr, hm = mixer([pb, whb], 11 * BAR - 0.3 * BAR)
+    lpm = ph(4 * BAR, hdr.h, hdr.m)
+    return {"PB": pb, "WHB": whb, "HDR": hdr, "LPM": lpm}, {
+        "HM": hm,
+        "PRV": {"S_gen": sflow([lpm], [hdr])},
+    }
 
 
-def mixing_superheated():
-    sh = pt(10 * BAR, C(350), 5.0)
-    wh = px(10 * BAR, 0.92, 1.2)
-    hd, hm = mixer([sh, wh], 10 * BAR)
-    return {"SH": sh, "WH": wh, "HD": hd}, {"HM": hm}
+def district_heat_blend():
+    hw = pt(8 * BAR, C(150), 0.9)
+    rt = pt(8 * BAR, C(45), 3.6)
+    bw, bv = mixer([hw, rt], 8 * BAR - 0.25 * BAR, 1.5 * KW)
+    return {"HW": hw, "RT": rt, "BW": bw}, {"BV": bv}
 
 
-def mixing_liquid():
-    hw = pt(5 * BAR, C(140), 1.2)
-    mw = pt(5 * BAR, C(12), 3.5)
-    bw, bv = mixer([hw, mw], 5 * BAR - 0.2 * BAR, 2 * KW)
-    return {"HW": hw, "MW": mw, "BW": bw}, {"BV": bv}
+def steam_injection():
+    atm = atmosphere_at(120)
+    st = px(3.5 * BAR, 1, 0.6)
+    cl = pt(3.5 * BAR, C(18), 1.8)
+    mx, inj = mixer([st, cl], 3.5 * BAR)
+    vnt = px(atm, 1)  # the vented tank runs at the site atmosphere
+    hl = px(atm, 0)
+    vnt.m = mx.m * (mx.h - hl.h) / (vnt.h - hl.h)
+    hl.m = mx.m - vnt.m
+    return {"ST": st, "CL": cl, "MX": mx, "VNT": vnt, "HL": hl}, {
+        "INJ": inj,
+        "HLT": {"S_gen": sflow([vnt, hl], [mx])},
+    }
 
 
 EXAMPLES = {
@@ -310,12 +322,12 @@ EXAMPLES = {
     "prv_station.hmb": prv_station,
     "simple_rankine.hmb": simple_rankine,
     "reheat_rankine.hmb": reheat_rankine,
-    "regenerative_rankine.hmb": regenerative_rankine,
-    "closed_fwh.hmb": closed_fwh,
+    "waste_to_energy_cycle.hmb": waste_to_energy_cycle,
+    "hp_feed_heater.hmb": hp_feed_heater,
     "process_heater.hmb": process_heater,
-    "mixing_wet.hmb": mixing_wet,
-    "mixing_superheated.hmb": mixing_superheated,
-    "mixing_liquid.hmb": mixing_liquid,
+    "steam_header.hmb": steam_header,
+    "district_heat_blend.hmb": district_heat_blend,
+    "steam_injection.hmb": steam_injection,
 }
 
 
