@@ -94,6 +94,11 @@ func stateAt(pm, t float64, region int) (State, error) {
 // state3 converts a region-3 (rho, T) to a State.
 func state3(rho, t float64) State {
 	pr := region3.Eval(rho, t)
+	if !(pr.DpDrho > 0) {
+		// Inside the near-critical loop of Eq. 28 (see region3.SolvePH): cp diverges at the
+		// critical point and has no value there.
+		pr.Cp = math.NaN()
+	}
 	v := 1 / rho
 	return State{
 		P: pr.P * 1e6, T: t, V: v, Rho: rho,

@@ -186,11 +186,23 @@ func solve2(pp pair, x1, x2, rho, T float64) (float64, float64, bool) {
 			break
 		}
 	}
-	if e <= ok2 && pr.DpDrho > 0 {
+	if e <= ok2 && stable(pr.DpDrho, T) {
 		return rho, T, true
 	}
 	return nan(), nan(), false
 }
+
+// stable reports whether a state of Eq. 28 with (dp/drho)_T = dpdrho at T may be taken as a
+// solution. Mechanical stability requires dpdrho > 0; within satClosed of Tc the isotherm is
+// flat to within flatSlope across the loop that Eq. 28 keeps there (found: -5.7e-8 at 1e-4 K
+// below Tc, -5.8e-13 at Tc), which no solution can avoid: where the dome has closed, such a
+// state is the one the formulation gives.
+func stable(dpdrho, T float64) bool {
+	return dpdrho > 0 || math.Abs(T-Tc) <= satClosed && dpdrho > -flatSlope
+}
+
+// flatSlope bounds |(dp/drho)_T| (MPa/(kg/m3)) of the near-critical loop of Eq. 28.
+const flatSlope = 1e-7
 
 // SolvePH returns the (rho, T) at which the basic equation gives pressure p
 // (MPa) and enthalpy h (kJ/kg), both reproduced to 1e-12 relative. Started
@@ -223,9 +235,12 @@ func SolveHS(h, s float64) (rho, T float64, ok bool) {
 // the largest and smallest roots of p(rho, T) = psat, started from the
 // SR5-05(2016) subregions that hold the saturated states (3c, 3s, 3u, 3y on
 // the liquid side; 3t, 3r, 3x, 3z on the vapour side) and refined like RhoPT.
-// ok is false outside that range or if the two roots are not distinct.
+// ok is false outside that range or if the two roots are not distinct, except within
+// satClosed of Tc, where both densities are the one root found.
 func SatRho(T, psat float64) (rhoL, rhoV float64, ok bool) {
-	if !(T >= 623.15 && T < Tc) || !inRange(psat) || psat > Pc {
+	// Eq. 30 gives 22.064000000002 MPa at T = Tsat(pc) = Tc - 1.2e-9 K: a rounding, not a
+	// pressure above the critical one.
+	if !(T >= 623.15 && T < Tc) || !inRange(psat) || psat > Pc*(1+1e-12) {
 		return nan(), nan(), false
 	}
 	var xl, xv byte
@@ -251,8 +266,22 @@ func SatRho(T, psat float64) (rhoL, rhoV float64, ok bool) {
 	}
 	rl, okl := solveRho(psat, T, 1/vOf(xl, psat, T), liquid)
 	rv, okv := solveRho(psat, T, 1/vOf(xv, psat, T), vapour)
-	if !okl || !okv || !(rl > rv) {
+	switch {
+	case okl && okv && rl > rv:
+		return rl, rv, true
+	case Tc-T > satClosed:
 		return nan(), nan(), false
+	case okl:
+		return rl, rl, true
+	case okv:
+		return rv, rv, true
 	}
-	return rl, rv, true
+	return nan(), nan(), false
 }
+
+// satClosed is the distance below Tc (K) within which SatRho may return one density for
+// both phases. There the saturation pressure of Eq. 30 lies above the van der Waals loop of
+// Eq. 28 (found: from 3.3e-5 K below Tc, 10 Pa below pc, upwards), so the isotherm meets it
+// once: at the resolution of the formulation the two-phase region has closed, as it does at the
+// critical point itself.
+const satClosed = 1e-4
