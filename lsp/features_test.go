@@ -106,7 +106,7 @@ func TestUnitRename(t *testing.T) {
 	// The result an expectation checks on a unit has its own help.
 	var h *protocol.Hover
 	c.mustCall(protocol.MethodTextDocumentHover, docPos(uri, protocol.Position{Line: 3, Character: 11}), &h)
-	if h == nil || h.Contents.Value != "`sgen` (result of a valve): entropy generated, in a power unit per kelvin or rankine (kW/K, Btu/h/R)" ||
+	if h == nil || h.Contents.Value != "`sgen` (rate of entropy generation result of a valve): entropy generated: zero for a reversible process, below zero impossible" ||
 		*h.Range != (protocol.Range{Start: protocol.Position{Line: 3, Character: 10}, End: protocol.Position{Line: 3, Character: 14}}) {
 		t.Errorf("hover on sgen = %+v", h)
 	}
@@ -143,11 +143,11 @@ func TestCompletionSites(t *testing.T) {
 	}{
 		{"atmosphere spelling", protocol.Position{Line: 0, Character: 14}, "MPa MPa(a) MPa(g) MPaa MPag Pa atm bar bar(a) bar(g) bara barg inH2O inHg kPa kPa(a) kPa(g) kPaa kPag mbar psi psi(a) psi(g) psia psig"},
 		{"turbine roles and parameters", protocol.Position{Line: 3, Character: 2}, "in out efficiency power"},
-		{"expect property", protocol.Position{Line: 5, Character: 9}, "flow p T h s x"},
+		{"expect property", protocol.Position{Line: 5, Character: 9}, "flow p T h s x v"},
 		{"enthalpy spelling", protocol.Position{Line: 6, Character: 15}, "Btu/lb Btu/lbm J/kg MJ/kg kJ/kg"},
-		{"expect result of a turbine", protocol.Position{Line: 7, Character: 10}, "sgen power"},
+		{"expect result of a turbine", protocol.Position{Line: 7, Character: 10}, "power efficiency sgen"},
 		{"power spelling", protocol.Position{Line: 8, Character: 20}, "Btu/h Btu/hr MBH MMBtu/h MMBtu/hr MW TR W hp kBtu/h kBtu/hr kW ton"},
-		{"no spelling list for an entropy rate", protocol.Position{Line: 9, Character: 19}, ""},
+		{"entropy rate spelling", protocol.Position{Line: 9, Character: 19}, "Btu/(h R) Btu/(h*R) Btu/(hr R) Btu/(h·R) Btu/h-R Btu/h/R Btu/hR Btu/hr-R Btu/hr/R MW/K W/K kW/K"},
 	}
 	for _, tt := range tests {
 		if got := labels(tt.pos); got != tt.want {

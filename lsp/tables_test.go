@@ -6,6 +6,7 @@ package lsp
 
 import (
 	"fmt"
+	"hmb/thermo/units"
 	"strings"
 	"testing"
 
@@ -70,17 +71,17 @@ func TestTitleHoverAndCommand(t *testing.T) {
 		t.Errorf("stream table heading %s", got)
 	}
 	// S2 (python3-iapws: T 99.606 C, h 2607.60, s 7.17814, x 0.970168), rounded as the table
-	// writes them: T and h to 0.1, s and x to 1e-4, flow and p to 4 figures.
-	want := []string{"S2", "exhaust", "10.00", "100.0", fmt.Sprintf("%.1f", refT2), fmt.Sprintf("%.1f", refH2),
-		fmt.Sprintf("%.4f", refS2), fmt.Sprintf("%.4f", refX2), "saturated mixture"}
+	// writes them: x to 1e-4, the rest to 5 figures.
+	want := []string{"S2", "exhaust", "10.000", "100.00", units.Format(refT2, 5), units.Format(refH2, 5),
+		units.Format(refS2, 5), fmt.Sprintf("%.4f", refX2), "saturated mixture"}
 	if got := rows["S2"]; strings.Join(got, ",") != strings.Join(want, ",") {
 		t.Errorf("S2 row %q, want %q", got, want)
 	}
-	if got := rows["S1"]; len(got) != 9 || got[5] != fmt.Sprintf("%.1f", refH1) || got[7] != "" || got[8] != "superheated vapour" {
+	if got := rows["S1"]; len(got) != 9 || got[5] != units.Format(refH1, 5) || got[7] != "" || got[8] != "superheated vapour" {
 		t.Errorf("S1 row %q", got)
 	}
-	// T1: power 6067.69 kW and entropy generated 4.06946 kW/K, to 4 figures; a turbine has no duty.
-	if got := strings.Join(rows["T1"], ","); got != "T1,,turbine,,6068,4.069" {
+	// T1: power 6067.69 kW and entropy generated 4.06946 kW/K, to 5 figures; a turbine has no duty.
+	if got := strings.Join(rows["T1"], ","); got != "T1,,turbine,,6067.7,4.0695" {
 		t.Errorf("T1 row %s", got)
 	}
 	if got := strings.Join(rows["unit"], ","); got != "unit,label,kind,duty (kW),shaft power (kW),entropy generation (kW/K)" {
@@ -99,8 +100,8 @@ func TestTablesUSDisplay(t *testing.T) {
 	if h := rows["stream"]; len(h) != 9 || h[4] != "T (F)" {
 		t.Fatalf("heading %q in\n%s", h, cmd)
 	}
-	if got := rows["S2"][4]; got != fmt.Sprintf("%.1f", refT2F) {
-		t.Errorf("S2 T = %s F, want %.1f (python3-iapws)", got, refT2F)
+	if got := rows["S2"][4]; got != units.Format(refT2F, 5) {
+		t.Errorf("S2 T = %s F, want %.5g (python3-iapws)", got, refT2F)
 	}
 	// 6067.69 kW in Btu/h (1 Btu_IT = 1055.05585262 J), to 4 figures.
 	near(t, "T1 power (US)", rows["T1"][4], refPowerBtuPerH, 5e-4)

@@ -13,6 +13,7 @@ import (
 	"testing"
 
 	"hmb/thermo/model"
+	"hmb/thermo/units"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files of the command-line tests")
@@ -258,10 +259,10 @@ func TestCodesTable(t *testing.T) {
 func TestKindsTable(t *testing.T) {
 	names := slices.Sorted(maps.Keys(model.Kinds))
 	var b strings.Builder
-	b.WriteString("| kind | what it is | roles | parameters |\n|---|---|---|---|\n")
+	b.WriteString("| kind | what it is | roles | parameters | results |\n|---|---|---|---|---|\n")
 	for _, n := range names {
 		k := model.Kinds[n]
-		var roles, params []string
+		var roles, params, results []string
 		for _, p := range k.Ports {
 			r := "`" + p.Role + "`"
 			if p.Many {
@@ -272,9 +273,61 @@ func TestKindsTable(t *testing.T) {
 		for _, p := range k.Params {
 			params = append(params, "`"+p.Name+"` ("+p.Doc+")")
 		}
-		fmt.Fprintf(&b, "| `%s` | %s | %s | %s |\n", n, k.Doc, strings.Join(roles, ", "), strings.Join(params, ", "))
+		for _, r := range k.Results {
+			results = append(results, "`"+r.Name+"`")
+		}
+		fmt.Fprintf(&b, "| `%s` | %s | %s | %s | %s |\n", n, k.Doc, strings.Join(roles, ", "), strings.Join(params, ", "), strings.Join(results, ", "))
 	}
 	readmeSection(t, "kinds", b.String())
+}
+
+// TestResultsTable keeps README.md's table of results (what outputs show and expectations
+// check) equal to the catalogue.
+func TestResultsTable(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("| result | of | quantity | what it is |\n|---|---|---|---|\n")
+	row := func(r model.ResultSpec, of, doc string) {
+		fmt.Fprintf(&b, "| `%s` | %s | %s (%s, %s) | %s |\n", r.Name, of, r.Dim,
+			orDash(units.SI.Default(r.Dim).Symbol()), orDash(units.US.Default(r.Dim).Symbol()), doc)
+	}
+	for _, r := range model.StreamResults {
+		row(r, "every stream", r.Doc)
+	}
+	kinds := slices.Sorted(maps.Keys(model.Kinds))
+	seen := map[string]bool{}
+	for _, n := range kinds {
+		for _, r := range model.Kinds[n].Results {
+			if seen[r.Name] {
+				continue
+			}
+			seen[r.Name] = true
+			var of, docs []string
+			same := true
+			for _, m := range kinds {
+				if mr := model.Kinds[m].Result(r.Name); mr != nil {
+					of = append(of, m)
+					docs = append(docs, m+": "+mr.Doc)
+					same = same && mr.Doc == r.Doc
+				}
+			}
+			doc := r.Doc
+			if !same {
+				doc = strings.Join(docs, "; ")
+			}
+			if len(of) == len(kinds) {
+				of = []string{"every unit"}
+			}
+			row(r, strings.Join(of, ", "), doc)
+		}
+	}
+	readmeSection(t, "results", b.String())
+}
+
+func orDash(s string) string {
+	if s == "" {
+		return "fraction"
+	}
+	return s
 }
 
 // readmeSection compares the part of README.md between the markers of name with want, or

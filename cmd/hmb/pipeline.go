@@ -2,10 +2,8 @@ package main
 
 import (
 	"context"
-	"fmt"
 	"math"
 	"slices"
-	"strconv"
 	"strings"
 
 	"hmb/lang"
@@ -99,36 +97,36 @@ func streamTable(m *model.Model, r *solve.Result) string {
 	if len(m.Streams) == 0 {
 		return ""
 	}
-	sys, atm := m.Display, m.Atm
-	dims := []units.Dim{units.MassFlow, units.Pressure, units.Temperature, units.SpecificEnergy, units.SpecificEntropy}
+	disp := units.Display{System: m.Display, Atm: m.Atm}
+	cols := []string{"flow", "p", "T", "h", "s", "x"}
 	head := []string{"stream"}
-	for i, d := range dims {
-		head = append(head, fmt.Sprintf("%s %s", []string{"flow", "p", "T", "h", "s"}[i], sys.Default(d).Symbol()))
+	for _, c := range cols {
+		if u := disp.Unit(model.StreamResult(c).Dim).Symbol(); u != "" {
+			c += " " + u
+		}
+		head = append(head, c)
 	}
-	head = append(head, "x", "phase")
+	head = append(head, "phase")
 	rows := [][]string{head}
 	for i, s := range m.Streams {
 		sr := r.Streams[i]
 		row := []string{s.Name}
-		vals := []float64{sr.M, math.NaN(), math.NaN(), math.NaN(), math.NaN()}
-		x, phase := "", "unsolved"
-		if sr.HasState {
-			st := sr.State
-			vals[1], vals[2], vals[3], vals[4] = st.P, st.T, st.H, st.S
-			phase = st.Phase.String()
-			if !math.IsNaN(st.X) {
-				x = strconv.FormatFloat(st.X, 'f', 4, 64)
-			}
-		}
-		for j, d := range dims {
-			v := vals[j]
-			if math.IsNaN(v) {
+		for _, c := range cols {
+			v, spec, _ := r.Value(m, model.Subject{Kind: model.StreamSubject, Index: i}, c)
+			switch {
+			case math.IsNaN(v) && c == "x":
+				row = append(row, "") // single phase, or unsolved
+			case math.IsNaN(v):
 				row = append(row, "-")
-				continue
+			default:
+				row = append(row, disp.Number(spec.Dim, v))
 			}
-			row = append(row, units.Format(sys.Default(d).FromSI(v, atm), 5))
 		}
-		rows = append(rows, append(row, x, phase))
+		phase := "unsolved"
+		if sr.HasState {
+			phase = sr.State.Phase.String()
+		}
+		rows = append(rows, append(row, phase))
 	}
 	width := make([]int, len(head))
 	for _, row := range rows {

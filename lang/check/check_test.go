@@ -106,9 +106,9 @@ func TestDiagnostics(t *testing.T) {
 		{"unit where a stream is needed", "stream A, B\nvalve V { in A; out B }\nvalve W { in V; out A }",
 			[]want{{code: "HMB211", at: "W { in |V", msg: "V is a valve, not a stream"}}, false},
 		{"unknown stream property in an expectation", "stream A, B\nvalve V { in A; out B }\nexpect A pres > 1 bar",
-			[]want{{code: "HMB212", at: "pres", msg: "a stream has no property pres (it has flow, p, T, h, s or x); did you mean p?", fix: "p"}}, false},
+			[]want{{code: "HMB212", at: "pres", msg: "a stream has no property pres (it has flow, p, T, h, s, x or v); did you mean p?", fix: "p"}}, false},
 		{"unknown unit result in an expectation", "stream A, B\nturbine T1 { in A; out B }\nexpect T1 powr > 1 kW",
-			[]want{{code: "HMB212", at: "powr", msg: "turbine T1 has no result powr (it has sgen or power); did you mean power?", fix: "power"}}, false},
+			[]want{{code: "HMB212", at: "powr", msg: "turbine T1 has no result powr (it has power, efficiency or sgen); did you mean power?", fix: "power"}}, false},
 
 		// Values and units.
 		{"wrong dimension", "stream A { p 40 lbm/h }",

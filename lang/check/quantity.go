@@ -3,7 +3,6 @@ package check
 import (
 	"fmt"
 	"math"
-	"strings"
 
 	"hmb/lang/ast"
 	"hmb/thermo/units"
@@ -146,27 +145,4 @@ func unitSuffix(q *ast.Quantity) string {
 		return " %"
 	}
 	return " " + q.Unit.Name
-}
-
-// entropyRate returns the SI scale (to W/K) of a spelling "<power unit>/K" or "<power unit>/R",
-// the unit of entropy generation, which the units package does not list.
-func entropyRate(spelling string) (float64, bool) {
-	k := strings.LastIndexByte(spelling, '/')
-	if k <= 0 {
-		return 0, false
-	}
-	var per float64
-	switch spelling[k+1:] {
-	case "K":
-		per = 1
-	case "R":
-		per = 5.0 / 9.0 // one rankine is 5/9 kelvin
-	default:
-		return 0, false
-	}
-	u, err := units.Lookup(spelling[:k])
-	if err != nil || u.Dim() != units.Power {
-		return 0, false
-	}
-	return u.DeltaToSI(1) / per, true
 }

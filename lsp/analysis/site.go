@@ -1,8 +1,6 @@
 package analysis
 
 import (
-	"slices"
-
 	"hmb/lang/ast"
 	"hmb/lang/check"
 	"hmb/lang/token"
@@ -120,16 +118,15 @@ func (a *Analyzer) Site(syn *cache.Syntax, off int) cache.Site {
 		if k := expectUnit(); k != nil {
 			site.Kinds, site.UnitKind, site.Results = cache.SiteResult, k.Name, check.Results(k)
 		} else {
-			site.Kinds = cache.SiteProp
+			site.Kinds, site.Results = cache.SiteResult, check.StreamProps
 		}
 	case first == "expect" && last() == token.Number:
 		if k := expectUnit(); k != nil {
-			// Duty and power take power units; sgen, an entropy rate, has no dimension of its own.
-			if r := text(entry[2]); r != "sgen" && slices.Contains(check.Results(k), r) {
-				site.Kinds, site.Dim = cache.SiteSpelling, units.Power
+			if r := k.Result(text(entry[2])); r != nil {
+				site.Kinds, site.Dim = cache.SiteSpelling, r.Dim
 			}
-		} else if dim, ok := propDim(text(entry[2])); ok {
-			site.Kinds, site.Dim = cache.SiteSpelling, dim
+		} else if r := model.StreamResult(text(entry[2])); r != nil {
+			site.Kinds, site.Dim = cache.SiteSpelling, r.Dim
 		}
 	case first == "atmosphere" && last() == token.Number:
 		site.Kinds, site.Dim = cache.SiteSpelling, units.Pressure

@@ -37,7 +37,7 @@ func Completion(snap *cache.Snapshot, off int) *protocol.CompletionList {
 	// Inside a block the properties come first: they are what is written there most.
 	if site.Kinds&cache.SiteProp != 0 {
 		for _, p := range propOrder {
-			add(p.String(), protocol.CompletionItemKindProperty, propDoc[p.String()])
+			add(p.String(), protocol.CompletionItemKindProperty, propDoc(p.String()))
 		}
 	}
 	if site.Kinds&cache.SiteKeyword != 0 {
@@ -75,11 +75,13 @@ func Completion(snap *cache.Snapshot, off int) *protocol.CompletionList {
 	if site.Kinds&cache.SiteResult != 0 {
 		k := model.Kinds[site.UnitKind]
 		for _, r := range site.Results {
-			doc := sgenDoc
+			spec := model.StreamResult(r)
 			if k != nil {
-				if p := k.Param(r); p != nil {
-					doc = p.Doc
-				}
+				spec = k.Result(r)
+			}
+			doc := ""
+			if spec != nil {
+				doc = spec.Dim.String() + ": " + spec.Doc
 			}
 			add(r, protocol.CompletionItemKindProperty, doc)
 		}

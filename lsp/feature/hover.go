@@ -102,7 +102,7 @@ func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
 		if t > 0 && syn.Tokens[t-1].Kind == cache.UnitToken {
 			return resultHover(snap.Src(), syn, syn.Tokens[t-1].Span, word)
 		}
-		if doc := propDoc[word]; doc != "" {
+		if doc := propDoc(word); doc != "" {
 			return fmt.Sprintf("`%s`: %s", word, doc)
 		}
 	case cache.SpellingToken:
@@ -111,7 +111,8 @@ func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
 	return ""
 }
 
-// resultHover describes what an expectation checks on the unit named at name.
+// resultHover describes what an expectation checks on the unit named at name: the result's entry
+// in the kind catalogue.
 func resultHover(src []byte, syn *cache.Syntax, name model.Span, word string) string {
 	var k *model.Kind
 	for _, s := range syn.Symbols {
@@ -119,36 +120,21 @@ func resultHover(src []byte, syn *cache.Syntax, name model.Span, word string) st
 			k = model.Kinds[s.UnitKind]
 		}
 	}
-	switch {
-	case k == nil:
+	if k == nil {
 		return ""
-	case word == "sgen":
-		return fmt.Sprintf("`sgen` (result of a %s): %s", k.Name, sgenDoc)
-	case k.Param(word) != nil:
-		p := k.Param(word)
-		return fmt.Sprintf("`%s` (%s result of a %s): %s", word, p.Dim, k.Name, p.Doc)
+	}
+	if r := k.Result(word); r != nil {
+		return fmt.Sprintf("`%s` (%s result of a %s): %s", word, r.Dim, k.Name, r.Doc)
 	}
 	return ""
 }
 
-// sgenDoc is the help on the entropy generation an expectation may check.
-const sgenDoc = "entropy generated, in a power unit per kelvin or rankine (kW/K, Btu/h/R)"
-
-// propDoc is one line of help per stream property a file may give.
-var propDoc = map[string]string{
-	"flow": "mass flow of the stream",
-	"p":    "pressure (absolute, or gauge against the site atmosphere with a gauge unit)",
-	"T":    "temperature",
-	"h":    "specific enthalpy (IAPWS-IF97 reference: liquid at the triple point has u = 0, s = 0)",
-	"s":    "specific entropy",
-	"x":    "quality: the vapour mass fraction of wet steam, 0 (saturated liquid) to 1 (saturated vapour)",
-}
-
-// siBase names the SI base unit of each dimension, for the equivalents hover shows.
-var siBase = map[units.Dim]string{
-	units.Dimensionless: "", units.Pressure: "Pa", units.Temperature: "K", units.TemperatureDiff: "K",
-	units.SpecificEnergy: "J/kg", units.SpecificEntropy: "J/(kg K)", units.SpecificVolume: "m3/kg",
-	units.Density: "kg/m3", units.MassFlow: "kg/s", units.Power: "W", units.Length: "m",
+// propDoc is the help on a stream property or result, from the catalogue.
+func propDoc(name string) string {
+	if r := model.StreamResult(name); r != nil {
+		return r.Doc
+	}
+	return ""
 }
 
 // SpellingHover describes the unit spelling of token t: its dimension and, when a number stands
@@ -168,7 +154,7 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 	if u.Gauge() {
 		fmt.Fprintf(&b, ", gauge (above a site atmosphere of %s Pa)", units.Format(syn.Atm, 6))
 	}
-	base := siBase[u.Dim()]
+	base := units.Base(u.Dim()).Symbol()
 	if t > 0 && syn.Tokens[t-1].Kind == cache.NumberToken {
 		num := syn.Tokens[t-1].Span
 		raw := string(src[num.Start:num.End])
@@ -193,12 +179,7 @@ func show(v float64, d units.Dim, sys units.System, atm float64) string {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "unknown"
 	}
-	u := sys.Default(d)
-	s := units.Format(u.FromSI(v, atm), 5)
-	if u.Symbol() != "" {
-		s += " " + u.Symbol()
-	}
-	return s
+	return units.Display{System: sys, Atm: atm}.Show(d, v)
 }
 
 // StreamHover is the Markdown description of a stream: its solved state, each value with where it
@@ -218,10 +199,7 @@ func StreamHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) stri
 	for q := cache.Quantity(0); q < cache.NumQuantities; q++ {
 		v := st.Values[q]
 		val := show(v, q.Dim(), syn.Display, syn.Atm)
-		switch {
-		case q == cache.QX && !math.IsNaN(v):
-			val = units.Format(v, 4)
-		case q == cache.QX && st.Phase != "":
+		if q == cache.QX && math.IsNaN(v) && st.Phase != "" {
 			val = "none (single phase)"
 		}
 		fmt.Fprintf(&b, "| %s | %s | %s |\n", q, val, mdCell(st.Source[q]))
@@ -261,10 +239,10 @@ func UnitHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string
 		fmt.Fprintf(&b, "\npower %s", show(u.Power, units.Power, sys, atm))
 	}
 	if !math.IsNaN(u.Efficiency) {
-		fmt.Fprintf(&b, "\nefficiency %s", units.Format(u.Efficiency, 4))
+		fmt.Fprintf(&b, "\nefficiency %s", show(u.Efficiency, units.Dimensionless, sys, atm))
 	}
 	if !math.IsNaN(u.Sgen) {
-		fmt.Fprintf(&b, "\nentropy generated %s", showSgen(u.Sgen, sys))
+		fmt.Fprintf(&b, "\nentropy generated %s", show(u.Sgen, units.EntropyRate, sys, atm))
 	}
 	// A closure is known only for a balance that was redundant: it checks the givens.
 	if !math.IsNaN(u.MassClosure) {
@@ -274,16 +252,6 @@ func UnitHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string
 		fmt.Fprintf(&b, "\nenergy balance closes within %s%%", units.Format(100*u.EnergyClosure, 3))
 	}
 	return b.String()
-}
-
-// showSgen writes an entropy rate (W/K) as the display system's power unit per degree of its
-// absolute scale: kW/K, or Btu/h per rankine (1 R = 5/9 K).
-func showSgen(wPerK float64, sys units.System) string {
-	p := sys.Default(units.Power)
-	if sys == units.US {
-		return units.Format(p.FromSI(wPerK*5/9, 0), 5) + " " + p.Symbol() + "/R"
-	}
-	return units.Format(p.FromSI(wPerK, 0), 5) + " " + p.Symbol() + "/K"
 }
 
 // mdCell keeps a table cell on one line and its pipes from splitting it.

@@ -72,7 +72,7 @@ func StreamHint(syn *cache.Syntax, st *cache.StreamState) string {
 			if v < 0 || v > 1 {
 				continue
 			}
-			parts = append(parts, "x "+units.Format(v, 4))
+			parts = append(parts, "x "+show(v, units.Dimensionless, syn.Display, syn.Atm))
 			continue
 		}
 		parts = append(parts, q.String()+" "+show(v, q.Dim(), syn.Display, syn.Atm))

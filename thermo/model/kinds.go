@@ -18,13 +18,24 @@ type ParamSpec struct {
 	Doc   string
 }
 
-// Kind is a kind of equipment: the ports it has and the parameters it takes. The balance equations
-// belong to the solver; this catalogue is what the notation needs to check a file.
+// ResultSpec describes one result: a value the solver finds for a stream or a unit, which outputs
+// show and an expectation may check. Its value comes from solve.Result.Value, the one lookup of
+// a result by name; a new result is one row here and one computation there.
+type ResultSpec struct {
+	Name string
+	Dim  units.Dim
+	Doc  string
+}
+
+// Kind is a kind of equipment: the ports it has, the parameters it takes and the results the
+// solver reports for it. The balance equations belong to the solver; this catalogue is what the
+// notation needs to check a file and what every output names results by.
 type Kind struct {
-	Name   string
-	Doc    string
-	Ports  []PortSpec
-	Params []ParamSpec
+	Name    string
+	Doc     string
+	Ports   []PortSpec
+	Params  []ParamSpec
+	Results []ResultSpec
 }
 
 // Port returns the spec of a role, or nil.
@@ -36,6 +47,74 @@ func (k *Kind) Port(role string) *PortSpec {
 	}
 	return nil
 }
+
+// Result returns the spec of a result, or nil.
+func (k *Kind) Result(name string) *ResultSpec { return findResult(k.Results, name) }
+
+func findResult(rs []ResultSpec, name string) *ResultSpec {
+	for i := range rs {
+		if rs[i].Name == name {
+			return &rs[i]
+		}
+	}
+	return nil
+}
+
+// StreamResults are the results of every stream, in display order. The first six are the
+// properties a file may give (Prop); the rest are derived from the state.
+var StreamResults = []ResultSpec{
+	{Name: "flow", Dim: units.MassFlow, Doc: "mass flow of the stream"},
+	{Name: "p", Dim: units.Pressure, Doc: "pressure (absolute, or gauge against the site atmosphere with a gauge unit)"},
+	{Name: "T", Dim: units.Temperature, Doc: "temperature"},
+	{Name: "h", Dim: units.SpecificEnergy, Doc: "specific enthalpy (IAPWS-IF97 reference: liquid at the triple point has u = 0, s = 0)"},
+	{Name: "s", Dim: units.SpecificEntropy, Doc: "specific entropy"},
+	{Name: "x", Dim: units.Dimensionless, Doc: "quality: the vapour mass fraction of wet steam, 0 (saturated liquid) to 1 (saturated vapour)"},
+	{Name: "v", Dim: units.SpecificVolume, Doc: "specific volume"},
+}
+
+// StreamResult returns the spec of a stream result, or nil.
+func StreamResult(name string) *ResultSpec { return findResult(StreamResults, name) }
+
+// SubjectKind says what a result belongs to.
+type SubjectKind uint8
+
+const (
+	StreamSubject SubjectKind = iota
+	UnitSubject
+)
+
+// Subject is a stream or a unit of a model, by index into Model.Streams or Model.Units.
+type Subject struct {
+	Kind  SubjectKind
+	Index int
+}
+
+// Subject is what the expectation checks.
+func (e *Expect) Subject() Subject {
+	if e.Unit >= 0 {
+		return Subject{Kind: UnitSubject, Index: e.Unit}
+	}
+	return Subject{Kind: StreamSubject, Index: e.Stream}
+}
+
+// Results lists the results of a subject of m: StreamResults, or the results of the unit's kind
+// (none for an index out of range or a unit of unknown kind).
+func (m *Model) Results(sub Subject) []ResultSpec {
+	switch sub.Kind {
+	case StreamSubject:
+		if sub.Index >= 0 && sub.Index < len(m.Streams) {
+			return StreamResults
+		}
+	case UnitSubject:
+		if sub.Index >= 0 && sub.Index < len(m.Units) && m.Units[sub.Index] != nil && m.Units[sub.Index].Kind != nil {
+			return m.Units[sub.Index].Kind.Results
+		}
+	}
+	return nil
+}
+
+// Result returns the spec of the result name of a subject of m, or nil.
+func (m *Model) Result(sub Subject, name string) *ResultSpec { return findResult(m.Results(sub), name) }
 
 // Param returns the spec of a parameter, or nil.
 func (k *Kind) Param(name string) *ParamSpec {
@@ -56,42 +135,55 @@ var (
 	loss    = ParamSpec{Name: "heat_loss", Dim: units.Power, Doc: "heat lost to surroundings"}
 	duty    = ParamSpec{Name: "duty", Dim: units.Power, Doc: "heat added to the fluid"}
 	effIsen = ParamSpec{Name: "efficiency", Dim: units.Dimensionless, Doc: "isentropic efficiency"}
+
+	sgen     = ResultSpec{Name: "sgen", Dim: units.EntropyRate, Doc: "entropy generated: zero for a reversible process, below zero impossible"}
+	lossR    = ResultSpec{Name: "heat_loss", Dim: units.Power, Doc: "heat lost to surroundings, as given (zero when not given)"}
+	dutyIn   = ResultSpec{Name: "duty", Dim: units.Power, Doc: "heat added to the fluid"}
+	effIsenR = ResultSpec{Name: "efficiency", Dim: units.Dimensionless, Doc: "isentropic efficiency, given or solved"}
 )
 
 // Kinds is the catalogue of unit kinds, by name.
 var Kinds = map[string]*Kind{
 	"mixer": {Name: "mixer", Doc: "adiabatic mixing chamber, open feedwater heater or deaerator: inlets mix into one outlet",
-		Ports: []PortSpec{ins, out}, Params: []ParamSpec{loss, dp}},
+		Ports: []PortSpec{ins, out}, Params: []ParamSpec{loss, dp},
+		Results: []ResultSpec{lossR, sgen}},
 	"splitter": {Name: "splitter", Doc: "tee: outlets leave at the inlet state",
-		Ports: []PortSpec{in, outs}},
+		Ports: []PortSpec{in, outs}, Results: []ResultSpec{sgen}},
 	"valve": {Name: "valve", Doc: "throttling valve: enthalpy conserved",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{dp}},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{dp}, Results: []ResultSpec{sgen}},
 	"heater": {Name: "heater", Doc: "heat added to one stream",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp}},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp}, Results: []ResultSpec{dutyIn, sgen}},
 	"cooler": {Name: "cooler", Doc: "heat removed from one stream",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dp}},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dp},
+		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, sgen}},
 	"boiler": {Name: "boiler", Doc: "steam generator: feedwater heated to steam",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency: duty over fuel input"},
-			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}}},
+			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}},
+		Results: []ResultSpec{dutyIn,
+			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency, duty over fuel input, given or solved"},
+			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input, given or solved"}, sgen}},
 	"turbine": {Name: "turbine", Doc: "adiabatic expansion producing shaft power",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{effIsen,
-			{Name: "power", Dim: units.Power, Doc: "shaft power produced"}}},
+			{Name: "power", Dim: units.Power, Doc: "shaft power produced"}},
+		Results: []ResultSpec{{Name: "power", Dim: units.Power, Doc: "shaft power produced"}, effIsenR, sgen}},
 	"pump": {Name: "pump", Doc: "adiabatic compression of liquid taking shaft power",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{effIsen,
-			{Name: "power", Dim: units.Power, Doc: "shaft power absorbed"}}},
+			{Name: "power", Dim: units.Power, Doc: "shaft power absorbed"}},
+		Results: []ResultSpec{{Name: "power", Dim: units.Power, Doc: "shaft power absorbed"}, effIsenR, sgen}},
 	"exchanger": {Name: "exchanger", Doc: "two-stream heat exchanger without mixing (closed feedwater heater, condenser)",
 		Ports: []PortSpec{
 			{Role: "hot_in", Inlet: true, Doc: "hot-side inlet"}, {Role: "hot_out", Doc: "hot-side outlet"},
 			{Role: "cold_in", Inlet: true, Doc: "cold-side inlet"}, {Role: "cold_out", Doc: "cold-side outlet"}},
 		Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat passed from hot to cold side"}, loss,
 			{Name: "dp_hot", Dim: units.Pressure, Delta: true, Doc: "hot-side pressure drop"},
-			{Name: "dp_cold", Dim: units.Pressure, Delta: true, Doc: "cold-side pressure drop"}}},
+			{Name: "dp_cold", Dim: units.Pressure, Delta: true, Doc: "cold-side pressure drop"}},
+		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat passed from hot to cold side"}, lossR, sgen}},
 	"flash": {Name: "flash", Doc: "flash tank or separator: feed splits into saturated vapour and saturated liquid at the tank pressure",
 		Ports:  []PortSpec{ins, {Role: "vapor", Doc: "saturated vapour outlet"}, {Role: "liquid", Doc: "saturated liquid outlet"}},
-		Params: []ParamSpec{loss}},
+		Params: []ParamSpec{loss}, Results: []ResultSpec{lossR, sgen}},
 	"desuperheater": {Name: "desuperheater", Doc: "spray water into steam to reach a target outlet state",
 		Ports: []PortSpec{{Role: "steam", Inlet: true, Doc: "superheated steam inlet"},
 			{Role: "water", Inlet: true, Doc: "spray water inlet"}, out},
-		Params: []ParamSpec{loss}},
+		Params: []ParamSpec{loss}, Results: []ResultSpec{lossR, sgen}},
 }

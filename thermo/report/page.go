@@ -94,65 +94,19 @@ func expectValue(in *Input, ex *model.Expect) string {
 	if in.Result == nil {
 		return Unsolved
 	}
-	m, r, q := in.Model, in.Result, newQuantities(in.Model)
-	show := func(d units.Dim, si float64) string {
-		if math.IsNaN(si) {
-			return Unsolved
-		}
-		u := q.unit(d)
-		if l, err := units.Lookup(ex.Spelling); err == nil && l.Dim() == d && ex.Spelling != "" {
-			u = l
-		}
-		if u.Symbol() == "" {
-			return fixed(si, decX) // a bare fraction, as the stream table shows quality
-		}
-		return sig(u.FromSI(si, q.atm), 5) + " " + u.Symbol()
-	}
-	if ex.Stream >= 0 && ex.Stream < len(m.Streams) && ex.Stream < len(r.Streams) {
-		sr := r.Streams[ex.Stream]
-		if ex.Prop == model.Flow.String() {
-			return show(units.MassFlow, sr.M)
-		}
-		if !sr.HasState {
-			return Unsolved
-		}
-		st := sr.State
-		switch ex.Prop {
-		case "p":
-			return show(units.Pressure, st.P)
-		case "T":
-			return show(units.Temperature, st.T)
-		case "h":
-			return show(units.SpecificEnergy, st.H)
-		case "s":
-			return show(units.SpecificEntropy, st.S)
-		case "x":
-			if math.IsNaN(st.X) {
-				return st.Phase.String()
-			}
-			return show(units.Dimensionless, st.X)
+	sub := ex.Subject()
+	v, spec, ok := in.Result.Value(in.Model, sub, ex.Prop)
+	if !ok || math.IsNaN(v) {
+		if ok && sub.Kind == model.StreamSubject && ex.Prop == "x" && sub.Index < len(in.Result.Streams) && in.Result.Streams[sub.Index].HasState {
+			return in.Result.Streams[sub.Index].State.Phase.String()
 		}
 		return Unsolved
 	}
-	if ex.Unit >= 0 && ex.Unit < len(m.Units) && ex.Unit < len(r.Units) {
-		ur := r.Units[ex.Unit]
-		switch ex.Prop {
-		case "duty":
-			return show(units.Power, ur.Q)
-		case "power":
-			return show(units.Power, ur.W)
-		case "fuel":
-			return show(units.Power, ur.Fuel)
-		case "efficiency":
-			return show(units.Dimensionless, ur.Efficiency)
-		case "sgen":
-			if math.IsNaN(ur.Sgen) {
-				return Unsolved
-			}
-			return sig(q.sgenConv(ur.Sgen), 5) + " " + q.sgenUnit()
-		}
+	q := newQuantities(in.Model)
+	if u, err := units.Lookup(ex.Spelling); err == nil && ex.Spelling != "" && u.Dim() == spec.Dim {
+		return units.ShowIn(u, v, q.atm)
 	}
-	return Unsolved
+	return q.show(spec.Dim, v)
 }
 
 // position is the 1-based line and column (in code points) of a byte offset.

@@ -171,7 +171,7 @@ func TestDiagnostics(t *testing.T) {
 				return mk(t, streams{strm("S1", flow, 2, pp, 6e6, tt, 723.15), strm("S2", pp, 0.2e6)}, unit("T", "turbine", ports("in S1", "out S2"), "efficiency", 1.2))
 			},
 			code: CodeEfficiency, sev: model.Error, at: paramAt("T", "efficiency"),
-			contains: []string{"efficiency 1.200 is outside 0..1"},
+			contains: []string{"efficiency 1.2000 is outside 0..1"},
 		},
 		{
 			name: "solved efficiency above 1: the exhaust is drier than an ideal turbine allows",
@@ -190,7 +190,7 @@ func TestDiagnostics(t *testing.T) {
 					unit("B1", "boiler", ports("in S1", "out S2"), "dp", 0.5e6, "fuel", 20e6))
 			},
 			code: CodeEfficiency, sev: model.Error, at: unitAt("B1"),
-			contains: []string{"solved boiler efficiency 1.223 is outside 0..1"},
+			contains: []string{"solved boiler efficiency 1.2227 is outside 0..1"},
 		},
 		{
 			name: "exchanger temperature cross",

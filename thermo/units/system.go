@@ -42,6 +42,7 @@ var defaults = [2][numDims]string{
 		Power:           "kW",
 		Length:          "m",
 		Velocity:        "m/s",
+		EntropyRate:     "kW/K",
 	},
 	US: {
 		Dimensionless:   "",
@@ -56,6 +57,7 @@ var defaults = [2][numDims]string{
 		Power:           "Btu/h",
 		Length:          "ft",
 		Velocity:        "ft/s",
+		EntropyRate:     "Btu/(h R)",
 	},
 }
 

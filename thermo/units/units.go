@@ -23,6 +23,7 @@ const (
 	Power
 	Length
 	Velocity
+	EntropyRate // entropy generated per unit time, W/K
 
 	numDims = iota
 )
@@ -40,6 +41,7 @@ var dimNames = [numDims]string{
 	Power:           "power",
 	Length:          "length",
 	Velocity:        "speed",
+	EntropyRate:     "rate of entropy generation",
 }
 
 // String names the dimension in the words a diagnostic uses ("expected pressure, got ...").
@@ -79,7 +81,7 @@ func (u Unit) Gauge() bool { return u.def().gauge }
 func (u Unit) String() string { return u.Symbol() }
 
 // ToSI converts a value in u to absolute SI base units: Pa, K, J/kg, J/(kg K), m3/kg, kg/m3,
-// kg/s, W, m, and a plain fraction for dimensionless units. atm is the site atmosphere in Pa and
+// kg/s, W, m, m/s, W/K, and a plain fraction for dimensionless units. atm is the site atmosphere in Pa and
 // is used only by gauge units. A gauge value below -atm yields a negative absolute pressure; the
 // caller decides how to report it.
 func (u Unit) ToSI(v, atm float64) float64 {

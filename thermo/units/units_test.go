@@ -66,6 +66,9 @@ func TestFactors(t *testing.T) {
 		{"TR", 3.516853e3, sp7, sp811 + ", ton of refrigeration (12 000 Btu_IT/h)"},
 		{"ton", 3.516853e3, sp7, sp811 + ", ton of refrigeration (12 000 Btu_IT/h)"},
 		{"ft", 0.3048, 0, "International yard and pound agreement (1959)"},
+		{"kW/K", 1e3, 0, "SI prefix"},
+		{"Btu/(h R)", 5.275279e-1, sp7, sp811 + ", Btu_IT/h = 2.930 711 E-01 W, over 5/9 K"},
+		{"Btu/h/R", 0.52752792631, 1e-10, "1055.05585262 J / 3600 s / (5/9 K): Btu_IT (1956) and the rankine"},
 		{"km", 1000, 0, "SI prefix"},
 		{"%", 0.01, 0, "per cent"},
 	}
@@ -304,8 +307,8 @@ func TestSystem(t *testing.T) {
 		}
 	}
 	want := map[System][numDims]string{
-		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s"},
-		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s"},
+		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s", "kW/K"},
+		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s", "Btu/(h R)"},
 	}
 	for sys, syms := range want {
 		for d := Dim(0); d < numDims; d++ {

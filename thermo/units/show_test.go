@@ -1,0 +1,95 @@
+package units
+
+import (
+	"math"
+	"strings"
+	"testing"
+)
+
+// Every label hmb prints, for every quantity in both systems, as a value and as a difference,
+// reads back through Lookup as a unit of the same dimension (a temperature difference may read
+// back as a temperature unit, which the notation accepts for a tolerance).
+func TestPrintedLabelsParseBack(t *testing.T) {
+	for _, sys := range []System{SI, US} {
+		for _, atm := range []float64{0, 84560} {
+			disp := Display{System: sys, Atm: atm}
+			for d := Dim(0); d < numDims; d++ {
+				for _, out := range []string{disp.Show(d, 12.5), disp.Delta(d, 12.5)} {
+					num, lab, _ := strings.Cut(out, " ")
+					if _, _, err := ParseQuantity(num); err != nil {
+						t.Errorf("%v %v: %q: number does not parse: %v", sys, d, out, err)
+					}
+					u, err := Lookup(lab)
+					if err != nil {
+						t.Errorf("%v %v: %q: label %q does not parse: %v", sys, d, out, lab, err)
+						continue
+					}
+					want := d
+					if d == Temperature && strings.HasPrefix(out, disp.Delta(d, 12.5)) {
+						want = TemperatureDiff
+					}
+					if u.Dim() != want && !(d == Temperature && u.Dim() == TemperatureDiff) {
+						t.Errorf("%v %v: %q: label %q reads back as %v", sys, d, out, lab, u.Dim())
+					}
+				}
+			}
+		}
+	}
+	// Every unit's own label, as ShowIn and ShowDelta write it after a user wrote that unit.
+	for _, d := range defs {
+		u := mustLookup(t, d.sym)
+		for _, out := range []string{ShowIn(u, 1, StandardAtmosphere), ShowDelta(u, 1)} {
+			_, lab, _ := strings.Cut(out, " ")
+			back, err := Lookup(lab)
+			if err != nil || back.Dim() != u.Dim() {
+				t.Errorf("%q written as %q: label reads back as %v, %v", d.sym, out, back.Dim(), err)
+			}
+		}
+	}
+}
+
+func TestShow(t *testing.T) {
+	si := Display{System: SI}
+	us := Display{System: US, Atm: 84560}
+	tests := []struct {
+		got, want string
+	}{
+		{si.Show(Temperature, 373.15), "100.00 C"},
+		{us.Show(Temperature, 373.15), "212.00 F"},
+		{si.Show(Pressure, 101325), "101.33 kPa"},
+		{us.Show(Pressure, 101325), "14.696 psia"},
+		{si.Delta(Pressure, 5000), "5.0000 kPa"},
+		{us.Delta(Pressure, 6894.757293168), "1.0000 psi"},
+		{si.Delta(Temperature, 2), "2.0000 dK"},
+		{us.Delta(Temperature, 5.0/9), "1.0000 dR"},
+		{si.Show(EntropyRate, 4069.4617), "4.0695 kW/K"},
+		// 1 W/K = 3600/1055.05585262 Btu/h per K = 1.8956 Btu/(h R) (NIST SP 811 Btu_IT, 1 R = 5/9 K)
+		{us.Show(EntropyRate, 1), "1.8956 Btu/(h R)"},
+		{si.Show(Dimensionless, 1), "1.0000"},
+		{si.Show(Dimensionless, 0), "0.0000"},
+		{si.Show(Dimensionless, -1e-9), "0.0000"},
+		{si.Show(Power, math.NaN()), "n/a"},
+		{si.Number(MassFlow, 2.5), "2.5000"},
+		{ShowIn(mustLookup(t, "%"), 0.85, 0), "85.00 %"},
+		{ShowIn(mustLookup(t, "psig"), 101325+6894.757293168*150, 101325), "150.00 psig"},
+		{ShowDelta(mustLookup(t, "kPa(g)"), 2000), "2.0000 kPa"},
+		{Trim(1), "1"}, {Trim(2.50), "2.5"}, {Trim(1.5e-7), "1.5e-7"}, {Trim(123456), "123460"},
+	}
+	for i, tt := range tests {
+		if tt.got != tt.want {
+			t.Errorf("%d: got %q, want %q", i, tt.got, tt.want)
+		}
+	}
+}
+
+func TestBase(t *testing.T) {
+	want := map[Dim]string{Dimensionless: "", Pressure: "Pa", Temperature: "K", TemperatureDiff: "dK",
+		SpecificEnergy: "J/kg", SpecificEntropy: "J/(kg K)", SpecificVolume: "m3/kg", Density: "kg/m3",
+		MassFlow: "kg/s", Power: "W", Length: "m", Velocity: "m/s", EntropyRate: "W/K"}
+	for d := Dim(0); d < numDims; d++ {
+		u := Base(d)
+		if u.Symbol() != want[d] || u.Dim() != d || u.ToSI(2.5, StandardAtmosphere) != 2.5 {
+			t.Errorf("Base(%v) = %q", d, u.Symbol())
+		}
+	}
+}
