@@ -275,6 +275,7 @@ func (c *checker) undefined(id *ast.Ident, wantUnit, either bool) {
 	d := c.errorf(CodeUndefined, id, "%s %s is not declared", what, id.Name)
 	if !either && !wantUnit {
 		d.Message += fmt.Sprintf(" (declare it with: stream %s)", id.Name)
+		d.Undeclared = id.Name
 	}
 	var cands []string
 	for _, o := range c.info.Order {

@@ -21,14 +21,11 @@ func (a *Analyzer) QuickFixes(syn *cache.Syntax, sol *cache.Solution, d model.Di
 	f := dd.res.File
 	switch d.Code {
 	case check.CodeUndefined:
-		// Only an undeclared stream can be declared for the user; the checker says so in its message.
-		if !strings.Contains(d.Message, "declare it with: stream") {
+		// Only an undeclared stream can be declared for the user; the checker names it.
+		name := d.Undeclared
+		if name == "" || d.Span.Start < 0 || d.Span.End > len(f.Src.Src) || d.Span.Start > d.Span.End {
 			return nil
 		}
-		if d.Span.Start < 0 || d.Span.End > len(f.Src.Src) || d.Span.Start >= d.Span.End {
-			return nil
-		}
-		name := string(f.Src.Src[d.Span.Start:d.Span.End])
 		// Declare it just before the statement that uses it, at the start of that statement's line.
 		at := d.Span.Start
 		for _, s := range f.Stmts {

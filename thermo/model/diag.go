@@ -32,7 +32,8 @@ type Related struct {
 }
 
 // Diagnostic is one finding about a calc file. Code is stable (see the table in README.md): quick
-// fixes and suppression key on it. Message names streams and values in the user's units.
+// fixes and suppression key on it and on the structured fields below, never on Message, which
+// names streams and values in the user's units and may be reworded.
 type Diagnostic struct {
 	Span     Span
 	Severity Severity
@@ -44,6 +45,9 @@ type Diagnostic struct {
 	// Specify lists, for an under-specified system, values a file could state to fix it, the
 	// nearest first (the message names the same ones).
 	Specify []Spec
+	// Undeclared, when set, is a stream the file names but never declares: a declaration
+	// "stream NAME" fixes it.
+	Undeclared string
 }
 
 // Spec names one value a calc file could state: a property of a stream or a parameter of a unit.
