@@ -27,6 +27,12 @@
 // Most blocks are one equation in one unknown; a given T, s or x with a known pressure is inverted
 // directly by IF97.
 //
+// The matching is a cheap pass (each equation takes the first free unknown it lists) completed by
+// depth-first searches for augmenting paths that remember which equations lead nowhere, so that
+// a flowsheet is matched in work linear in its size; a budget hands the rest to Hopcroft and
+// Karp's algorithm, O(E sqrt(V)), whatever the system (see matcher). The time limit covers the
+// analysis as well as the solving.
+//
 // Givens are tried for the matching before unit equations, so when a balance is redundant it is
 // the balance, not a given, that is left over and reported as a closure. One mass balance of each
 // closed loop (a cycle with no feed or product) is left out of the matching beforehand: the

@@ -42,6 +42,8 @@ type newton struct {
 	// their work arrays each time was a good part of solving a long chain.
 	buf []float64
 	g   []float64
+	// evals counts equation evaluations for Work.
+	evals int
 }
 
 // work returns zeroed residual, scale, Jacobian, step and start arrays for a block of k.
@@ -59,6 +61,7 @@ func (n *newton) work(k int) (r, scale, jac, dx, x0 []float64) {
 func (n *newton) solveBlock(eqs, vars []int) error {
 	sys := n.sys
 	if len(eqs) == 1 && sys.Eqs[eqs[0]].direct != nil {
+		n.evals++
 		v, err := sys.Eqs[eqs[0]].direct(n.x, vars[0])
 		if err == nil && finite(v) {
 			n.x[vars[0]] = v
@@ -98,6 +101,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 	eval := func(out []float64, keepScale bool) (float64, error) {
 		worst := 0.0
 		for i, e := range eqs {
+			n.evals++
 			res, sc, err := sys.Residual(e, n.x)
 			if err != nil {
 				return math.Inf(1), err
@@ -134,6 +138,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 				g = append(g, 0)
 			}
 			sys.gradient(e, n.x, g)
+			n.evals += 1 + 2*len(g)*b2i(eq.grad == nil)
 			for a, v := range eq.Vars {
 				if j, ok := col(v); ok {
 					jac[i*k+j] += g[a] / scale[i]
@@ -170,6 +175,13 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			return &blockError{reason: "no values satisfy these equations together", miss: norm}
 		}
 	}
+}
+
+func b2i(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
 }
 
 // luSolve solves a x = b in place (b becomes x) by Gaussian elimination with partial pivoting.

@@ -76,6 +76,7 @@ type Result struct {
 	// such as uncertainty propagation.
 	System *System
 	X      []float64
+	Work   Work
 }
 
 // Solve finds every stream's state and every unit's duty, and reports what is missing,
@@ -157,21 +158,29 @@ type solveRun struct {
 	solved []bool
 	nbr    [][]int // streams sharing a unit with each stream
 	diags  []model.Diagnostic
+	evals  int // equation evaluations, for Work
 }
 
 func (s *solveRun) run() {
 	s.b = build(s.m, s.f, s.relTol)
 	sys := s.b.sys
 	s.res.System = sys
-	s.st = analyse(sys)
+	st, err := analyse(s.ctx, sys)
+	s.st = st
 	s.x = make([]float64, len(sys.Vars))
 	for i := range s.x {
 		s.x[i] = math.NaN()
 	}
 	s.solved = make([]bool, len(sys.Vars))
-	s.neighbours()
-	s.underSpecified()
-	s.solveBlocks()
+	if err != nil {
+		// Cut short by the time limit: nothing is solved, and no unknown is reported as
+		// under-specified on a matching that was not finished.
+		s.timedOut()
+	} else {
+		s.neighbours()
+		s.underSpecified()
+		s.solveBlocks()
+	}
 	s.res.X = s.x
 	s.streamResults()
 	s.res.Units = make([]UnitResult, len(s.m.Units))
@@ -185,6 +194,7 @@ func (s *solveRun) run() {
 	diags := append(s.b.diags, s.diags...)
 	sort.SliceStable(diags, func(i, j int) bool { return diags[i].Span.Start < diags[j].Span.Start })
 	s.res.Diags = diags
+	s.res.Work = Work{Structure: s.st.steps, Evals: s.evals}
 }
 
 // diags collected after building go through solveRun.
@@ -237,10 +247,11 @@ func (s *solveRun) guess(v int) float64 {
 func (s *solveRun) solveBlocks() {
 	sys := s.b.sys
 	nt := &newton{ctx: s.ctx, sys: sys, x: s.x, solved: s.solved, maxIter: s.opt.MaxIter, guess: s.guess}
+	defer func() { s.evals += nt.evals }()
 	var vars []int
 	for _, blk := range s.st.blocks {
 		if s.ctx.Err() != nil {
-			s.diag(model.Error, CodeTimeout, model.Span{}, fmt.Sprintf("solving stopped after %s: %v; the values shown are incomplete", s.opt.Timeout, s.ctx.Err()))
+			s.timedOut()
 			return
 		}
 		vars = vars[:0]
@@ -260,7 +271,7 @@ func (s *solveRun) solveBlocks() {
 		}
 		err := nt.solveBlock(blk, vars)
 		if err == errTimeout {
-			s.diag(model.Error, CodeTimeout, model.Span{}, fmt.Sprintf("solving stopped after %s; the values shown are incomplete", s.opt.Timeout))
+			s.timedOut()
 			return
 		}
 		if err != nil {
@@ -274,6 +285,15 @@ func (s *solveRun) solveBlocks() {
 			s.solved[v] = true
 		}
 	}
+}
+
+// timedOut reports that the time limit (or the caller) stopped the solve.
+func (s *solveRun) timedOut() {
+	if s.ctx.Err() == context.Canceled {
+		s.diag(model.Error, CodeTimeout, model.Span{}, fmt.Sprintf("solving stopped after %s: %v; the values shown are incomplete", s.opt.Timeout, s.ctx.Err()))
+		return
+	}
+	s.diag(model.Error, CodeTimeout, model.Span{}, fmt.Sprintf("solving stopped after %s; the values shown are incomplete", s.opt.Timeout))
 }
 
 func contains(s []int, v int) bool {
@@ -600,6 +620,7 @@ func (s *solveRun) underSpecified() {
 		missing []int
 		cands   []int
 		quiet   bool // the group reaches an unknown whose given was rejected: a follow-on
+		cut     bool // cands are the nearest of more than maxReach
 	}
 	var groups []*grp
 	for v := range sys.Vars {
@@ -614,8 +635,8 @@ func (s *solveRun) underSpecified() {
 			continue
 		}
 		stamp++
-		reach := s.st.underdetermined(sys, v, mark, stamp)
-		g := &grp{missing: []int{v}, cands: reach}
+		reach, whole := s.st.underdetermined(sys, v, mark, stamp)
+		g := &grp{missing: []int{v}, cands: reach, cut: !whole}
 		groups = append(groups, g)
 		for _, w := range reach {
 			if group[w] == 0 {
@@ -652,6 +673,9 @@ func (s *solveRun) underSpecified() {
 		more := ""
 		if len(names) > 10 {
 			more = fmt.Sprintf(" (and %d more)", len(names)-10)
+			if g.cut {
+				more = fmt.Sprintf(" (and at least %d more)", len(names)-10)
+			}
 			names = names[:10]
 		}
 		var rel []model.Related

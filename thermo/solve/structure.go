@@ -1,20 +1,29 @@
 package solve
 
+import "context"
+
 // structure is the matching of equations to unknowns and the order of the blocks it implies.
 type structure struct {
 	matchEq  []int   // equation -> unknown it determines, or -1 (left over: over-specified)
 	matchVar []int   // unknown -> equation that determines it, or -1 (under-specified)
 	varEqs   [][]int // unknown -> equations touching it
 	blocks   [][]int // strongly connected groups of matched equations, in solving order
+	// steps counts the edges the analysis scanned (matching, ordering and the searches behind
+	// the diagnostics): the measure of its work that the scaling tests hold linear.
+	steps int
+	ctx   context.Context
 }
 
-// analyse matches equations to unknowns (maximum bipartite matching by augmenting paths, Kuhn
-// 1955), givens before unit equations so that a redundant balance rather than a given is left
-// over, then orders the matched equations into blocks (Tarjan 1972, strongly connected
-// components of "equation e needs the unknown that equation f determines").
-func analyse(sys *System) *structure {
+// checkEvery is how many steps the analysis takes between looks at the time limit.
+const checkEvery = 1 << 14
+
+// analyse matches equations to unknowns, givens before unit equations so that a redundant
+// balance rather than a given is left over (see matcher), then orders the matched equations into
+// blocks (Tarjan 1972, strongly connected components of "equation e needs the unknown that
+// equation f determines"). It returns ctx's error when the time limit cuts the analysis short.
+func analyse(ctx context.Context, sys *System) (*structure, error) {
 	nv, ne := len(sys.Vars), len(sys.Eqs)
-	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), varEqs: make([][]int, nv)}
+	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), varEqs: make([][]int, nv), ctx: ctx}
 	for i := range st.matchEq {
 		st.matchEq[i] = -1
 	}
@@ -40,89 +49,81 @@ func analyse(sys *System) *structure {
 			st.varEqs[v] = append(st.varEqs[v], e)
 		}
 	}
+	st.steps += 2 * len(flat)
 	skip := loopRedundant(sys)
-	seen := make([]int, nv)
-	stamp := 0
-	var try func(e int) bool
-	try = func(e int) bool {
-		for _, v := range sys.Eqs[e].Vars {
-			if seen[v] == stamp {
-				continue
-			}
-			seen[v] = stamp
-			if st.matchVar[v] < 0 || try(st.matchVar[v]) {
-				st.matchVar[v], st.matchEq[e] = e, v
-				return true
-			}
-		}
-		return false
-	}
+	m := newMatcher(st, sys, len(flat))
+	var free []int
 	for _, givens := range []bool{true, false} {
+		free = free[:0]
 		for e := range sys.Eqs { // cheap pass: a free unknown at hand
 			if (sys.Eqs[e].Kind == EqGiven) != givens || skip[e] {
 				continue
 			}
 			for _, v := range sys.Eqs[e].Vars {
+				st.steps++
 				if st.matchVar[v] < 0 {
 					st.matchVar[v], st.matchEq[e] = e, v
 					break
 				}
 			}
-		}
-		for e := range sys.Eqs {
-			if st.matchEq[e] < 0 && (sys.Eqs[e].Kind == EqGiven) == givens && !skip[e] {
-				stamp++
-				try(e)
+			if st.matchEq[e] < 0 {
+				free = append(free, e)
 			}
+		}
+		if err := m.match(free); err != nil {
+			return st, err
 		}
 	}
 	st.blocks = st.order(sys)
-	return st
+	if err := ctx.Err(); err != nil {
+		return st, err
+	}
+	return st, nil
 }
 
-// order runs Tarjan's algorithm iteratively (chains of thousands of units would otherwise nest
-// as deep). Tarjan emits a component only after every component it reaches, which is exactly
-// the order in which they can be solved.
+// order runs Tarjan's algorithm iteratively (chains of 100,000 units would otherwise nest as
+// deep). Tarjan emits a component only after every component it reaches, which is exactly the
+// order in which they can be solved. It stops early, with the blocks found so far, when the
+// time limit passes; analyse then reports the limit.
 func (st *structure) order(sys *System) [][]int {
 	ne := len(sys.Eqs)
-	index := make([]int, ne)
-	low := make([]int, ne)
+	matched := 0
+	for _, v := range st.matchEq {
+		if v >= 0 {
+			matched++
+		}
+	}
+	index := make([]int32, ne)
+	low := make([]int32, ne)
 	onStack := make([]bool, ne)
 	for i := range index {
 		index[i] = -1
 	}
 	var stack []int
-	var blocks [][]int
-	// Blocks are sub-slices of one array: each equation lands in exactly one block.
-	members := make([]int, 0, ne)
-	next := 0
-	type frame struct{ e, k int }
-	succ := func(e, k int) (int, bool) { // the k-th dependency of e
-		vars := sys.Eqs[e].Vars
-		if k >= len(vars) {
-			return 0, false
-		}
-		v := vars[k]
-		if v == st.matchEq[e] || st.matchVar[v] < 0 {
-			return -1, true
-		}
-		return st.matchVar[v], true
-	}
+	// Blocks are sub-slices of one array: each matched equation lands in exactly one block.
+	blocks := make([][]int, 0, matched)
+	members := make([]int, 0, matched)
+	next := int32(0)
+	var call []frame
 	for root := 0; root < ne; root++ {
 		if st.matchEq[root] < 0 || index[root] >= 0 {
 			continue
 		}
-		call := []frame{{root, 0}}
+		call = append(call[:0], frame{e: root})
 		index[root], low[root] = next, next
 		next++
 		stack = append(stack, root)
 		onStack[root] = true
 		for len(call) > 0 {
 			f := &call[len(call)-1]
-			w, ok := succ(f.e, f.k)
-			if ok {
+			if vars := sys.Eqs[f.e].Vars; int(f.k) < len(vars) {
+				if st.tick() {
+					return blocks
+				}
+				v := vars[f.k] // the k-th dependency of e: the equation that fixes v
 				f.k++
-				if w < 0 {
+				w := st.matchVar[v]
+				if v == st.matchEq[f.e] || w < 0 {
 					continue
 				}
 				if index[w] < 0 {
@@ -130,7 +131,7 @@ func (st *structure) order(sys *System) [][]int {
 					next++
 					stack = append(stack, w)
 					onStack[w] = true
-					call = append(call, frame{w, 0})
+					call = append(call, frame{e: w})
 				} else if onStack[w] {
 					low[f.e] = min(low[f.e], index[w])
 				}
@@ -162,22 +163,31 @@ func (st *structure) order(sys *System) [][]int {
 
 // underdetermined returns the unknowns reachable from the unmatched unknown u by alternating
 // paths (u, an equation touching it, the unknown that equation determines, ...), nearest first:
-// giving any one of them frees the matching to fix u.
-func (st *structure) underdetermined(sys *System, u int, mark []int, stamp int) []int {
+// giving any one of them frees the matching to fix u. In a large plant that may be most of it,
+// for each of many missing values: the search stops at the maxReach nearest, and whole says
+// whether it saw them all.
+func (st *structure) underdetermined(sys *System, u int, mark []int, stamp int) (reach []int, whole bool) {
 	queue := []int{u}
 	mark[u] = stamp
 	for k := 0; k < len(queue); k++ {
 		v := queue[k]
 		for _, e := range st.varEqs[v] {
+			st.steps++
 			w := st.matchEq[e]
 			if w >= 0 && mark[w] != stamp {
+				if len(queue) == maxReach {
+					return queue, false
+				}
 				mark[w] = stamp
 				queue = append(queue, w)
 			}
 		}
 	}
-	return queue
+	return queue, true
 }
+
+// maxReach bounds the unknowns an under-specified group offers: far more than a message names.
+const maxReach = 256
 
 // determining returns the givens that fix the unknowns of equation e through the matching:
 // the other side of a conflict.
@@ -187,6 +197,7 @@ func (st *structure) determining(sys *System, e int) []int {
 	var givens []int
 	for k := 0; k < len(queue) && len(givens) < 8; k++ {
 		for _, v := range sys.Eqs[queue[k]].Vars {
+			st.steps++
 			f := st.matchVar[v]
 			if f < 0 || seenE[f] {
 				continue

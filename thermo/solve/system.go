@@ -68,6 +68,13 @@ type System struct {
 	unitVar   []map[string]int
 }
 
+// Work counts what a solve did: a measure of its cost that, unlike time, does not depend on the
+// machine or on what else runs on it, so that tests can hold the solver's growth linear.
+type Work struct {
+	Structure int // equation-unknown incidences scanned: matching, block order, and the searches behind diagnostics
+	Evals     int // equation evaluations: residuals (one per side pair), gradients (one per finite difference), direct solutions
+}
+
 // StreamVar returns the index of stream i's unknown for prop (Flow, P or H), or -1.
 func (s *System) StreamVar(i int, prop model.Prop) int {
 	if i < 0 || i >= len(s.streamVar) {
