@@ -13,6 +13,7 @@ func runPlot(args []string, stdout, stderr io.Writer) error {
 	fset := flag.NewFlagSet("plot", flag.ContinueOnError)
 	fset.SetOutput(io.Discard)
 	kindArg := fset.String("kind", "Ts", "diagram: Ts, hs or ph")
+	full := fset.Bool("full-dome", false, "span the axes over the whole saturation dome, not just the streams")
 	out := fset.String("o", "", "write the SVG to this file instead of standard output")
 	sys := addSystemFlags(fset)
 	if err := fset.Parse(args); err != nil {
@@ -27,7 +28,7 @@ func runPlot(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	var buf bytes.Buffer
-	if err := report.Plot(&buf, in, report.PlotOptions{Kind: kind}); err != nil {
+	if err := report.Plot(&buf, in, report.PlotOptions{Kind: kind, FullDome: *full}); err != nil {
 		return &exitError{code: 1, msg: err.Error()}
 	}
 	if err := emit(*out, buf.Bytes(), stdout); err != nil {

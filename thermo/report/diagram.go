@@ -45,6 +45,10 @@ func ParseKind(s string) (Kind, error) {
 type PlotOptions struct {
 	Kind Kind
 	ID   string
+	// FullDome spans the axes over the whole saturation dome as well as the streams. By default
+	// the axes fit what the file draws: the streams, the units' paths between them and the
+	// isentropic ends, so that a low-pressure system fills the plot.
+	FullDome bool
 }
 
 // Critical point of water, IAPWS R7-97(2012), Eqs. 2 and 3 (Tc = 647.096 K, pc = 22.064 MPa);
@@ -69,12 +73,19 @@ const (
 	samplesPerBranch = 160
 )
 
-// palette tells units apart; the first seven are Okabe and Ito's colour-blind-safe set (without
-// its yellow, too pale on white).
-var palette = []string{"#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "#000000", "#8C564B"}
+// palette tells units apart: Okabe and Ito's colour-blind-safe set without its yellow (too pale on
+// white) and its black (the saturation line's colour), then a brown and a purple.
+var palette = []string{"#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "#8C564B", "#6A3D9A"}
+
+// Colours of the diagram's fixed lines; no unit is drawn in them.
+const (
+	domeColor    = "#000"
+	isolineColor = "#888"
+)
 
 type diagram struct {
 	kind   Kind
+	full   bool
 	id     string
 	q      quantities
 	m      *model.Model
@@ -105,7 +116,7 @@ func PlotString(in *Input, opt PlotOptions) (string, error) {
 	if int(opt.Kind) >= len(kindNames) {
 		return "", fmt.Errorf("unknown diagram kind %d", opt.Kind)
 	}
-	d := &diagram{kind: opt.Kind, id: opt.ID, q: newQuantities(in.Model), m: in.Model, in: in}
+	d := &diagram{kind: opt.Kind, id: opt.ID, full: opt.FullDome, q: newQuantities(in.Model), m: in.Model, in: in}
 	if d.id == "" {
 		d.id = strings.ToLower(opt.Kind.String())
 	}
@@ -187,7 +198,8 @@ func (d *diagram) build() error {
 		}
 	}
 	refs := d.isentropicEnds()
-	d.setAxes(refs)
+	paths := d.unitLines()
+	d.setAxes(refs, paths)
 	d.lay.area = rect{plotL, plotT, plotR, plotB}
 
 	w := &d.w
@@ -210,25 +222,33 @@ func (d *diagram) build() error {
 	for i := range d.dome {
 		dome[i] = d.px(&d.dome[i])
 	}
-	w.polylines(dome, fmt.Sprintf(`id="%s-dome" fill="none" stroke="#000" stroke-width="2"`, esc(d.id)))
+	w.polylines(dome, fmt.Sprintf(`id="%s-dome" fill="none" stroke="%s" stroke-width="2"`, esc(d.id), domeColor))
 	d.lay.trace(dome)
-	units := d.drawUnits(refs)
+	units := d.drawUnits(refs, paths)
 	w.printf("</g>\n")
 
+	// Markers first, then labels, most important first: streams, the critical point, the
+	// isolines, the quality lines. A label that finds no free spot is left out rather than
+	// drawn over another; stream labels search furthest.
 	cp := d.px(&d.crit)
-	w.printf(`<circle id="%s-critical" cx="%s" cy="%s" r="5" fill="#fff" stroke="#000" stroke-width="2"/>`+"\n", esc(d.id), num(cp[0]), num(cp[1]))
-	d.lay.solid = append(d.lay.solid, rect{cp[0] - 5, cp[1] - 5, cp[0] + 5, cp[1] + 5})
+	critIn := d.inPlot(cp)
+	if critIn {
+		w.printf(`<circle id="%s-critical" cx="%s" cy="%s" r="5" fill="#fff" stroke="%s" stroke-width="2"/>`+"\n", esc(d.id), num(cp[0]), num(cp[1]), domeColor)
+		d.lay.solid = append(d.lay.solid, rect{cp[0] - 6, cp[1] - 6, cp[0] + 6, cp[1] + 6})
+	}
 	d.drawStreams()
-	d.label(cp, "critical point", "d-sm", fontSmall)
+	if critIn {
+		d.label(cp, "critical point", "d-sm", fontSmall, false, 4)
+	}
 	for _, l := range isoLabels {
-		d.label(l.at, l.text, "d-sm", fontSmall)
+		d.label(l.at, l.text, "d-sm", fontSmall, false, 12)
 	}
 	for _, l := range qualLabels {
-		d.label(l.at, l.text, "d-sm", fontSmall)
+		d.label(l.at, l.text, "d-sm", fontSmall, false, 3)
 	}
 	w.printf(`<rect x="%s" y="%s" width="%s" height="%s" fill="none" stroke="#000" stroke-width="1.2"/>`+"\n",
 		num(plotL), num(plotT), num(plotR-plotL), num(plotB-plotT))
-	d.drawLegend(units)
+	d.drawLegend(units, critIn, len(qualLabels) > 0)
 	w.printf("</svg>\n")
 	return nil
 }
@@ -270,29 +290,61 @@ func (d *diagram) stateOf(i int) *if97.State {
 	return d.states[i]
 }
 
-// setAxes spans the dome, every solved stream and every isentropic end, and rounds outwards.
-func (d *diagram) setAxes(refs []isoRef) {
-	xlo, xhi, ylo, yhi := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
-	add := func(st *if97.State) {
+// setAxes spans what the diagram draws (or the whole dome too, when asked or when nothing is
+// solved) and rounds outwards.
+func (d *diagram) setAxes(refs []isoRef, paths []unitPath) {
+	type box struct{ xlo, xhi, ylo, yhi float64 }
+	empty := func() box { return box{math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)} }
+	add := func(b *box, st *if97.State) {
 		x, y := d.coords(st)
 		if math.IsNaN(x) || math.IsNaN(y) || (d.kind == PH && !(y > 0)) {
 			return
 		}
-		xlo, xhi, ylo, yhi = math.Min(xlo, x), math.Max(xhi, x), math.Min(ylo, y), math.Max(yhi, y)
+		b.xlo, b.xhi, b.ylo, b.yhi = math.Min(b.xlo, x), math.Max(b.xhi, x), math.Min(b.ylo, y), math.Max(b.yhi, y)
 	}
+	dome, data := empty(), empty()
 	for i := range d.dome {
-		add(&d.dome[i])
+		add(&dome, &d.dome[i])
 	}
 	for _, st := range d.states {
 		if st != nil {
-			add(st)
+			add(&data, st)
 		}
 	}
 	for i := range refs {
-		add(&refs[i].end)
+		add(&data, &refs[i].end)
+	}
+	for _, p := range paths {
+		for i := range p.states {
+			add(&data, &p.states[i])
+		}
+	}
+	b := data
+	if d.full || math.IsInf(data.xlo, 1) {
+		b = dome
+		if !math.IsInf(data.xlo, 1) {
+			b = box{math.Min(b.xlo, data.xlo), math.Max(b.xhi, data.xhi), math.Min(b.ylo, data.ylo), math.Max(b.yhi, data.yhi)}
+		}
+	} else {
+		// Never zoom in so far that a lone state or a short path fills the plot: each axis
+		// spans at least a tenth of the dome's (a decade of pressure), centred on the data.
+		widen := func(lo, hi, min float64) (float64, float64) {
+			if hi-lo >= min {
+				return lo, hi
+			}
+			c := (lo + hi) / 2
+			return c - min/2, c + min/2
+		}
+		b.xlo, b.xhi = widen(b.xlo, b.xhi, 0.1*(dome.xhi-dome.xlo))
+		if d.kind == PH {
+			l, h := widen(math.Log10(b.ylo), math.Log10(b.yhi), 1)
+			b.ylo, b.yhi = math.Pow(10, l), math.Pow(10, h)
+		} else {
+			b.ylo, b.yhi = widen(b.ylo, b.yhi, 0.1*(dome.yhi-dome.ylo))
+		}
 	}
 	pad := func(lo, hi float64) (float64, float64) {
-		m := 0.04 * (hi - lo)
+		m := 0.06 * (hi - lo)
 		nlo := lo - m
 		// The saturated liquid's entropy at the triple point is zero but for rounding (-6e-5
 		// J/(kg K) in IF97); do not let that open a whole negative tick.
@@ -308,7 +360,7 @@ func (d *diagram) setAxes(refs []isoRef) {
 	switch d.kind {
 	case TS:
 		d.x.title = "specific entropy s (" + sU.Symbol() + ")"
-		d.y.title = "temperature T (" + tU.Symbol() + ")"
+		d.y.title = "temperature T (" + printSymbol(tU) + ")"
 	case HS:
 		d.x.title = "specific entropy s (" + sU.Symbol() + ")"
 		d.y.title = "specific enthalpy h (" + hU.Symbol() + ")"
@@ -317,14 +369,23 @@ func (d *diagram) setAxes(refs []isoRef) {
 		d.y.title = "pressure p (" + pU.Symbol() + ", absolute)"
 		d.y.log = true
 	}
-	lo, hi := pad(xlo, xhi)
+	lo, hi := pad(b.xlo, b.xhi)
 	d.x.fit(lo, hi)
 	if d.y.log {
-		d.y.fit(ylo/1.3, yhi*1.3)
+		d.y.fit(b.ylo/1.3, b.yhi*1.3)
 	} else {
-		lo, hi = pad(ylo, yhi)
+		lo, hi = pad(b.ylo, b.yhi)
 		d.y.fit(lo, hi)
 	}
+}
+
+// printSymbol is a unit's symbol as a drawing prints it: degrees Celsius and Fahrenheit with
+// the degree sign (ISO 80000-5 writes °C; the notation accepts the bare C for typing).
+func printSymbol(u units.Unit) string {
+	if u.Dim() == units.Temperature && (u.Symbol() == "C" || u.Symbol() == "F") {
+		return "°" + u.Symbol()
+	}
+	return u.Symbol()
 }
 
 func (d *diagram) drawAxes() {
@@ -398,13 +459,13 @@ func (d *diagram) drawIsolines() []pendingLabel {
 		if d.kind == PH {
 			pts = d.isotherm(v)
 			u := d.q.unit(units.Temperature)
-			text = tickText(roundSig(u.FromSI(v, d.q.atm), 4)) + " " + u.Symbol()
+			text = tickText(roundSig(u.FromSI(v, d.q.atm), 4)) + " " + printSymbol(u)
 		} else {
 			pts = d.isobar(v)
 			u := d.q.unit(units.Pressure)
 			text = tickText(roundSig(u.FromSI(v, d.q.atm), 4)) + " " + u.Symbol()
 		}
-		d.w.polylines(pts, `class="isoline" fill="none" stroke="#888" stroke-width="1.2"`)
+		d.w.polylines(pts, `class="isoline" fill="none" stroke="`+isolineColor+`" stroke-width="1.2"`)
 		d.lay.trace(pts)
 		// Label the line where it leaves the plot: the hot or high-pressure end.
 		for i := len(pts) - 1; i >= 0; i-- {
@@ -563,21 +624,26 @@ type unitKey struct {
 	dashed                   bool
 }
 
-func (d *diagram) drawUnits(refs []isoRef) []unitKey {
-	var keys []unitKey
-	k := 0
+// unitPath is the line a unit draws between one inlet and one outlet, as states.
+type unitPath struct {
+	unit   int
+	states []if97.State
+}
+
+// unitLines follows each unit from inlet to outlet: along the process for heat exchange and
+// throttling, a straight chord otherwise.
+func (d *diagram) unitLines() []unitPath {
+	var out []unitPath
 	for ui, u := range d.m.Units {
 		if u == nil || u.Kind == nil {
 			continue
 		}
-		color := palette[k%len(palette)]
-		drawn := false
 		for _, pr := range unitPaths(u) {
 			a, b := d.stateOf(pr[0]), d.stateOf(pr[1])
 			if a == nil || b == nil {
 				continue
 			}
-			var pts [][2]float64
+			p := unitPath{unit: ui}
 			if followsPath(u.Kind.Name) {
 				// Linear in p and h between the ends: the isobar when there is no pressure drop,
 				// the isenthalp of a valve.
@@ -588,10 +654,33 @@ func (d *diagram) drawUnits(refs []isoRef) []unitKey {
 					if err != nil {
 						continue
 					}
-					pts = append(pts, d.px(&st))
+					p.states = append(p.states, st)
 				}
 			} else {
-				pts = [][2]float64{d.px(a), d.px(b)}
+				p.states = []if97.State{*a, *b}
+			}
+			out = append(out, p)
+		}
+	}
+	return out
+}
+
+func (d *diagram) drawUnits(refs []isoRef, paths []unitPath) []unitKey {
+	var keys []unitKey
+	k := 0
+	for ui, u := range d.m.Units {
+		if u == nil || u.Kind == nil {
+			continue
+		}
+		color := palette[k%len(palette)]
+		drawn := false
+		for _, p := range paths {
+			if p.unit != ui {
+				continue
+			}
+			pts := make([][2]float64, len(p.states))
+			for i := range p.states {
+				pts[i] = d.px(&p.states[i])
 			}
 			d.w.polylines(pts, fmt.Sprintf(`class="unit" data-unit="%s" fill="none" stroke="%s" stroke-width="2.5" stroke-linejoin="round"`, esc(u.Name), color))
 			d.lay.trace(pts)
@@ -608,6 +697,7 @@ func (d *diagram) drawUnits(refs []isoRef) []unitKey {
 			e := pts[1]
 			d.w.printf(`<circle cx="%s" cy="%s" r="3.5" fill="#fff" stroke="%s" stroke-width="1.5"/>`+"\n", num(e[0]), num(e[1]), color)
 			d.lay.trace(pts)
+			d.lay.solid = append(d.lay.solid, rect{e[0] - 4, e[1] - 4, e[0] + 4, e[1] + 4})
 			dashed = true
 		}
 		if drawn {
@@ -645,26 +735,36 @@ func (d *diagram) drawStreams() {
 		}
 		g.names = append(g.names, d.m.Streams[i].Name)
 		d.w.printf(`<circle class="stream" data-stream="%s" cx="%s" cy="%s" r="5" fill="#1a1a1a"/>`+"\n", esc(d.m.Streams[i].Name), num(p[0]), num(p[1]))
-		d.lay.solid = append(d.lay.solid, rect{p[0] - 5, p[1] - 5, p[0] + 5, p[1] + 5})
+		d.lay.solid = append(d.lay.solid, rect{p[0] - 6, p[1] - 6, p[0] + 6, p[1] + 6})
 	}
 	for _, g := range groups {
-		d.label(g.at, strings.Join(g.names, ", "), "d-tl", fontLabel)
+		text := strings.Join(g.names, ", ")
+		if !d.label(g.at, text, "d-tl", fontLabel, true, 12) {
+			d.label(g.at, text, "d-tl", fontLabel, true, 40)
+		}
 	}
 }
 
-// label places a text beside a point, with a leader line when it had to move away.
-func (d *diagram) label(at [2]float64, text, class string, size float64) {
-	n := len([]rune(text))
-	x, y, anchor, far := d.lay.place(at[0], at[1], n, size)
-	if far {
-		d.w.printf(`<line x1="%s" y1="%s" x2="%s" y2="%s" stroke="#666" stroke-width="0.8"/>`+"\n", num(at[0]), num(at[1]), num(x), num(y-size*0.3))
+// label places a text beside a point where it overlaps no other label or marker, with a leader
+// line when it had to move away; it reports false, drawing nothing, when there is no room within
+// maxRing rings of the point.
+func (d *diagram) label(at [2]float64, text, class string, size float64, bold bool, maxRing int) bool {
+	x, y, anchor, dist, ok := d.lay.place(at[0], at[1], text, size, bold, maxRing)
+	if !ok {
+		return false
+	}
+	if dist > 20 {
+		box := textBox(x, y, anchor, text, size, bold)
+		e := box.grow(1).nearest(at)
+		d.w.printf(`<line class="leader" x1="%s" y1="%s" x2="%s" y2="%s" stroke="#666" stroke-width="0.8"/>`+"\n", num(at[0]), num(at[1]), num(e[0]), num(e[1]))
 	}
 	// A white halo keeps labels readable over lines.
 	d.w.printf(`<text x="%s" y="%s" text-anchor="%s" class="%s" stroke="#fff" stroke-width="3" paint-order="stroke">%s</text>`+"\n",
 		num(x), num(y), anchor, class, esc(text))
+	return true
 }
 
-func (d *diagram) drawLegend(keys []unitKey) {
+func (d *diagram) drawLegend(keys []unitKey, crit, quality bool) {
 	w := &d.w
 	y := plotT + 4
 	line := func(attrs, text string) {
@@ -674,16 +774,20 @@ func (d *diagram) drawLegend(keys []unitKey) {
 	}
 	w.text(legendX, y, "start", "d-ax", "Legend")
 	y += 24
-	line(`stroke="#000" stroke-width="2"`, "saturation line")
-	w.printf(`<circle cx="%s" cy="%s" r="5" fill="#fff" stroke="#000" stroke-width="2"/>`+"\n", num(legendX+15), num(y-4))
-	w.text(legendX+38, y, "start", "d-lg", "critical point")
-	y += 21
-	if d.kind == PH {
-		line(`stroke="#888" stroke-width="1.2"`, "isotherm (at streams)")
-	} else {
-		line(`stroke="#888" stroke-width="1.2"`, "isobar (at streams)")
+	line(`stroke="`+domeColor+`" stroke-width="2"`, "saturation line")
+	if crit {
+		w.printf(`<circle cx="%s" cy="%s" r="5" fill="#fff" stroke="%s" stroke-width="2"/>`+"\n", num(legendX+15), num(y-4), domeColor)
+		w.text(legendX+38, y, "start", "d-lg", "critical point")
+		y += 21
 	}
-	line(`stroke="#999" stroke-width="1" stroke-dasharray="2,3"`, "quality x")
+	if d.kind == PH {
+		line(`stroke="`+isolineColor+`" stroke-width="1.2"`, "isotherm (at streams)")
+	} else {
+		line(`stroke="`+isolineColor+`" stroke-width="1.2"`, "isobar (at streams)")
+	}
+	if quality {
+		line(`stroke="#999" stroke-width="1" stroke-dasharray="2,3"`, "quality x")
+	}
 	w.printf(`<circle cx="%s" cy="%s" r="5" fill="#1a1a1a"/>`+"\n", num(legendX+15), num(y-4))
 	w.text(legendX+38, y, "start", "d-lg", "stream")
 	y += 21
@@ -698,7 +802,7 @@ func (d *diagram) drawLegend(keys []unitKey) {
 			w.text(legendX, y, "start", "d-lg", fmt.Sprintf("... and %d more", len(keys)-i))
 			break
 		}
-		line(fmt.Sprintf(`stroke="%s" stroke-width="2.5"`, k.color), k.name+" ("+k.kind+")")
+		line(fmt.Sprintf(`class="legend-unit" data-unit="%s" stroke="%s" stroke-width="2.5"`, esc(k.name), k.color), k.name+" ("+k.kind+")")
 		if k.label != "" {
 			lbl := k.label
 			if r := []rune(lbl); len(r) > 26 {

@@ -2,12 +2,16 @@ package report
 
 import (
 	"bytes"
+	"context"
+	"fmt"
 	"math"
 	"strconv"
 	"strings"
 	"testing"
 
 	"hmb/thermo/if97"
+	"hmb/thermo/model"
+	"hmb/thermo/solve"
 	"hmb/thermo/units"
 )
 
@@ -160,7 +164,7 @@ func TestDomeReadsBack(t *testing.T) {
 	in := testInput(t, units.SI)
 	for _, k := range []Kind{TS, HS, PH} {
 		var b bytes.Buffer
-		if err := Plot(&b, in, PlotOptions{Kind: k}); err != nil {
+		if err := Plot(&b, in, PlotOptions{Kind: k, FullDome: true}); err != nil {
 			t.Fatal(err)
 		}
 		root := parseXML(t, b.Bytes())
@@ -310,5 +314,67 @@ func TestAxisTicks(t *testing.T) {
 	}
 	if got := l.ticks(); got[0] != 1 || got[len(got)-1] != 10000 {
 		t.Errorf("log ticks %v", got)
+	}
+}
+
+// TestLegendColours: a chain of eight valves and a pump gives nine units; each unit's legend
+// colour differs from the saturation line's, from the isolines' and, within the palette's
+// length, from every other unit's. The temperature axis is titled in degrees.
+func TestLegendColours(t *testing.T) {
+	g := func(v float64) *model.Given { return &model.Given{Value: v} }
+	m := &model.Model{Title: "valve chain", Display: units.SI, Atm: units.StandardAtmosphere}
+	m.Streams = append(m.Streams, &model.Stream{Name: "S0", Fluid: "water",
+		Given: [model.NumProps]*model.Given{model.Flow: g(1), model.P: g(3e6), model.T: g(573.15)}})
+	for i := 1; i <= 8; i++ {
+		m.Streams = append(m.Streams, &model.Stream{Name: fmt.Sprintf("S%d", i), Fluid: "water",
+			Given: [model.NumProps]*model.Given{model.P: g(3e6 - float64(i)*0.3e6)}})
+		m.Units = append(m.Units, &model.Unit{Name: fmt.Sprintf("V%d", i), Kind: model.Kinds["valve"],
+			Ports: []model.Port{{Role: "in", Stream: i - 1}, {Role: "out", Stream: i}}})
+	}
+	m.Streams = append(m.Streams,
+		&model.Stream{Name: "W0", Fluid: "water", Given: [model.NumProps]*model.Given{model.Flow: g(1), model.P: g(1e5), model.T: g(313.15)}},
+		&model.Stream{Name: "W1", Fluid: "water", Given: [model.NumProps]*model.Given{model.P: g(2e6)}})
+	m.Units = append(m.Units, &model.Unit{Name: "P1", Kind: model.Kinds["pump"], Params: map[string]*model.Given{"efficiency": g(0.7)},
+		Ports: []model.Port{{Role: "in", Stream: 9}, {Role: "out", Stream: 10}}})
+	r := solve.Solve(context.Background(), m, solve.Options{})
+	in := &Input{Model: m, Result: r, Diags: r.Diags}
+	for _, sys := range []units.System{units.SI, units.US} {
+		s, err := PlotString(in, PlotOptions{Kind: TS})
+		if sys == units.US {
+			m.Display = units.US
+			s, err = PlotString(in, PlotOptions{Kind: TS})
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
+		root := parseXML(t, []byte(s))
+		dome := findByID(root, "ts-dome").attr("stroke")
+		var iso string
+		seen := map[string]string{}
+		n := 0
+		root.walk(func(n2 *node) {
+			switch n2.attr("class") {
+			case "isoline":
+				iso = n2.attr("stroke")
+			case "legend-unit":
+				n++
+				c := strings.ToLower(n2.attr("stroke"))
+				u := n2.attr("data-unit")
+				if c == strings.ToLower(dome) || c == strings.ToLower(iso) {
+					t.Errorf("unit %s drawn in %s, the colour of the saturation line or the isolines", u, c)
+				}
+				if o, dup := seen[c]; dup && len(seen) < len(palette) {
+					t.Errorf("units %s and %s share %s", o, u, c)
+				}
+				seen[c] = u
+			}
+		})
+		if n != 9 {
+			t.Errorf("%d units in the legend, want 9", n)
+		}
+		want := map[units.System]string{units.SI: "temperature T (°C)", units.US: "temperature T (°F)"}[sys]
+		if !strings.Contains(s, want) {
+			t.Errorf("%v: no axis title %q", sys, want)
+		}
 	}
 }

@@ -61,16 +61,48 @@ func (r rect) within(o rect) bool {
 	return r.x0 >= o.x0 && r.x1 <= o.x1 && r.y0 >= o.y0 && r.y1 <= o.y1
 }
 
-// layout keeps labels off each other, off the points and, where it can, off the lines.
+// layout keeps labels off each other and off the markers (a hard rule), and off the drawn lines
+// where it can (a cost).
 type layout struct {
 	area  rect
-	solid []rect // labels and markers: a label must not cover them
-	faint []rect // samples of drawn lines: better avoided
+	solid []rect // labels and markers: a label never overlaps them
+	faint grid   // samples of drawn lines: better avoided
 }
 
-// textBox estimates the box of a label of n runes: DejaVu Sans averages about 0.6 em a glyph.
-func textBox(x, y float64, anchor string, n int, size float64) rect {
-	w := 0.6 * size * float64(n)
+// gridCell is the side of a cell of the line-sample index, in pixels.
+const gridCell = 24.0
+
+// grid indexes the samples of drawn lines by cell, so that a label's cost counts only the samples
+// near it.
+type grid struct{ cells map[[2]int][][2]float64 }
+
+func (g *grid) add(x, y float64) {
+	if g.cells == nil {
+		g.cells = map[[2]int][][2]float64{}
+	}
+	k := [2]int{int(math.Floor(x / gridCell)), int(math.Floor(y / gridCell))}
+	g.cells[k] = append(g.cells[k], [2]float64{x, y})
+}
+
+// count is the number of samples inside r.
+func (g *grid) count(r rect) int {
+	n := 0
+	for i := int(math.Floor(r.x0 / gridCell)); i <= int(math.Floor(r.x1/gridCell)); i++ {
+		for j := int(math.Floor(r.y0 / gridCell)); j <= int(math.Floor(r.y1/gridCell)); j++ {
+			for _, p := range g.cells[[2]int{i, j}] {
+				if p[0] >= r.x0 && p[0] <= r.x1 && p[1] >= r.y0 && p[1] <= r.y1 {
+					n++
+				}
+			}
+		}
+	}
+	return n
+}
+
+// textBox is the box of a label: the advance width of its text and the font's ascent and descent
+// about the baseline (0.76 and 0.24 em in DejaVu Sans, rounded up).
+func textBox(x, y float64, anchor, text string, size float64, bold bool) rect {
+	w := textWidth(text, size, bold)
 	x0 := x
 	switch anchor {
 	case "middle":
@@ -78,51 +110,80 @@ func textBox(x, y float64, anchor string, n int, size float64) rect {
 	case "end":
 		x0 = x - w
 	}
-	return rect{x0, y - 0.8*size, x0 + w, y + 0.25*size}
+	return rect{x0, y - 0.78*size, x0 + w, y + 0.26*size}
 }
 
-// place picks the first least-covered position for a label beside (px, py) and claims it. It
-// returns the text position and anchor, and whether the label sits far enough away to want a
-// leader line.
-func (l *layout) place(px, py float64, n int, size float64) (x, y float64, anchor string, far bool) {
-	type cand struct {
-		dx, dy float64
-		anchor string
-	}
-	base := []cand{{1, 0.35, "start"}, {1, -0.8, "start"}, {1, 1.4, "start"}, {-1, 0.35, "end"},
-		{0, -1.2, "middle"}, {0, 2, "middle"}, {-1, -0.8, "end"}, {-1, 1.4, "end"}}
-	best, bestCost := -1, math.Inf(1)
-	var bx, by float64
-	var ba string
-	for ring := 1; ring <= 3; ring++ {
-		d := 8.0 * float64(ring) * float64(ring)
-		for i, c := range base {
-			x := px + c.dx*d
-			y := py + c.dy*size*0.6*float64(ring)
-			if c.dx == 0 {
-				y = py + c.dy*(size*0.6+d)
-			}
-			r := textBox(x, y, c.anchor, n, size)
-			cost := float64(ring-1) * 40
+// labelGap is the clear space kept around every label, in pixels; the white halo under the text
+// takes 1.5 of it.
+const labelGap = 2.0
+
+// place finds a spot for a label beside the point (px, py): the nearest position, on rings of
+// growing radius in sixteen directions, whose box lies inside the area and overlaps no other
+// label or marker, crossing as few drawn lines as it can. It claims the box and returns the text
+// position and anchor; ok is false when no ring within maxRing has room.
+func (l *layout) place(px, py float64, text string, size float64, bold bool, maxRing int) (x, y float64, anchor string, dist float64, ok bool) {
+	w := textWidth(text, size, bold)
+	h := 1.04 * size
+	bestCost := math.Inf(1)
+	var best rect
+	for ring := 0; ring <= maxRing; ring++ {
+		d := 7 + 10*float64(ring)
+		for k := 0; k < 16; k++ {
+			th := float64(k) * math.Pi / 8
+			c, s := math.Cos(th), math.Sin(th)
+			// The box touches the circle of radius d at the direction's point: beside the point
+			// for a horizontal direction, above or below it for a vertical one.
+			cx := px + d*c + sign(c, 0.3)*w/2
+			cy := py + d*s + sign(s, 0.3)*h/2
+			r := rect{cx - w/2, cy - h/2, cx + w/2, cy + h/2}
 			if !r.within(l.area) {
-				cost += 1e6
+				continue
 			}
+			g := r.grow(labelGap)
+			free := true
 			for _, o := range l.solid {
-				cost += 20 * r.overlap(o)
+				if g.overlap(o) > 0 {
+					free = false
+					break
+				}
 			}
-			for _, o := range l.faint {
-				cost += r.overlap(o)
+			if !free {
+				continue
 			}
+			cost := d + 6*float64(l.faint.count(r))
 			if cost < bestCost {
-				best, bestCost, bx, by, ba = ring*10+i, cost, x, y, c.anchor
+				bestCost, best, dist = cost, r, d
 			}
 		}
-		if bestCost == 0 {
+		// A free spot this close beats anything further out but for the lines it crosses:
+		// look one ring further, then stop.
+		if !math.IsInf(bestCost, 1) && bestCost < d+10 {
 			break
 		}
 	}
-	l.solid = append(l.solid, textBox(bx, by, ba, n, size))
-	return bx, by, ba, best >= 20
+	if math.IsInf(bestCost, 1) {
+		return 0, 0, "", 0, false
+	}
+	l.solid = append(l.solid, best)
+	// The text starts at the box's left edge, its baseline 0.78 em below the top.
+	return best.x0, best.y0 + 0.78*size, "start", dist, true
+}
+
+func sign(v, dead float64) float64 {
+	switch {
+	case v > dead:
+		return 1
+	case v < -dead:
+		return -1
+	}
+	return 0
+}
+
+func (r rect) grow(d float64) rect { return rect{r.x0 - d, r.y0 - d, r.x1 + d, r.y1 + d} }
+
+// nearest is the point of r nearest to p.
+func (r rect) nearest(p [2]float64) [2]float64 {
+	return [2]float64{math.Max(r.x0, math.Min(r.x1, p[0])), math.Max(r.y0, math.Min(r.y1, p[1]))}
 }
 
 // trace records the samples of a drawn line every few pixels.
@@ -131,17 +192,16 @@ func (l *layout) trace(pts [][2]float64) {
 		if math.IsNaN(p[0]) || math.IsNaN(p[1]) {
 			continue
 		}
-		l.faint = append(l.faint, rect{p[0] - 1.5, p[1] - 1.5, p[0] + 1.5, p[1] + 1.5})
+		l.faint.add(p[0], p[1])
 		if i+1 < len(pts) {
 			q := pts[i+1]
 			if math.IsNaN(q[0]) || math.IsNaN(q[1]) {
 				continue
 			}
-			steps := int(math.Hypot(q[0]-p[0], q[1]-p[1]) / 6)
-			for k := 1; k < steps && k < 500; k++ {
+			steps := int(math.Hypot(q[0]-p[0], q[1]-p[1]) / 4)
+			for k := 1; k < steps && k < 1000; k++ {
 				t := float64(k) / float64(steps)
-				x, y := p[0]+t*(q[0]-p[0]), p[1]+t*(q[1]-p[1])
-				l.faint = append(l.faint, rect{x - 1.5, y - 1.5, x + 1.5, y + 1.5})
+				l.faint.add(p[0]+t*(q[0]-p[0]), p[1]+t*(q[1]-p[1]))
 			}
 		}
 	}
