@@ -330,6 +330,47 @@ func orDash(s string) string {
 	return s
 }
 
+// TestUnitsTable keeps README.md's table of unit spellings equal to the table the notation and
+// hmb props read units with.
+func TestUnitsTable(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("| quantity | units | also written |\n|---|---|---|\n")
+	row := func(what string, us []units.Unit) {
+		var syms, alts []string
+		for _, u := range us {
+			syms = append(syms, "`"+u.Symbol()+"`")
+			for _, a := range u.Alternatives() {
+				alts = append(alts, "`"+a+"`")
+			}
+		}
+		if len(alts) > 12 { // the separators between kg and K, mostly: the table has them all
+			alts = append(alts[:10], "... ([all](thermo/units/table.go))")
+		}
+		fmt.Fprintf(&b, "| %s | %s | %s |\n", what, strings.Join(syms, " "), strings.Join(alts, " "))
+	}
+	for _, d := range units.Dims() {
+		all := units.Symbols(d)
+		if d != units.Pressure {
+			row(d.String(), all)
+			continue
+		}
+		for _, r := range []units.Reading{units.Absolute, units.Gauge, units.Vacuum, units.Difference} {
+			what := "pressure, " + r.String()
+			if r == units.Difference {
+				what = "pressure difference only (no reading)"
+			}
+			var us []units.Unit
+			for _, u := range all {
+				if u.Reading() == r {
+					us = append(us, u)
+				}
+			}
+			row(what, us)
+		}
+	}
+	readmeSection(t, "units", b.String())
+}
+
 // readmeSection compares the part of README.md between the markers of name with want, or
 // rewrites it under -update.
 func readmeSection(t *testing.T, name, want string) {

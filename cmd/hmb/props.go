@@ -79,7 +79,7 @@ func siteAtmosphere(atmArg, elevArg string) (float64, error) {
 		if err != nil {
 			return 0, fmt.Errorf("--atm: %v", err)
 		}
-		if u.Gauge() {
+		if u.Relative() {
 			return 0, fmt.Errorf("--atm: the site atmosphere must be an absolute pressure, not %s", u.Symbol())
 		}
 		p := u.ToSI(v, units.StandardAtmosphere)
@@ -116,6 +116,17 @@ func quantity(s string, d units.Dim) (float64, units.Unit, error) {
 	}
 	if u.Dim() != d && !(d == units.Temperature && u.Dim() == units.TemperatureDiff) {
 		return 0, units.Unit{}, fmt.Errorf("%s is a unit of %s, not of %s", u.Symbol(), u.Dim(), d)
+	}
+	if !u.Level() {
+		num := strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(s), spelling))
+		var words, spell []string
+		for _, r := range u.Readings() {
+			words = append(words, map[units.Reading]string{units.Absolute: "absolute", units.Gauge: "gauge",
+				units.Vacuum: "a vacuum below the site atmosphere"}[r.Reading()])
+			spell = append(spell, num+r.Symbol())
+		}
+		return 0, units.Unit{}, fmt.Errorf("%s does not say whether it is %s: write %s",
+			s, strings.Join(words, " or "), strings.Join(spell, " or "))
 	}
 	return v, u, nil
 }

@@ -28,6 +28,19 @@ func TestPropsJSON(t *testing.T) {
 		// python3-iapws: IAPWS97(T=373.15, x=0.5) -> P 0.10141797792131013 MPa, h 1547.3355921092682 kJ/kg.
 		{[]string{"--json", "T=100C", "x=50%"},
 			map[string]float64{"p": 101417.97792131013, "T": 373.15, "h": 1547335.5921092682, "region": 4}, 0.5},
+		// A condenser vacuum: 28 inHg below the standard atmosphere, 1 inHg = 13595.1 kg/m3 x
+		// 9.80665 m/s2 x 0.0254 m (NIST SP 811 (2008) App. B.8, conventional, 3.386 389 E+03 Pa).
+		// python3-iapws: IAPWS97(P=6506.118070451994e-6, x=0) -> T 310.79520207393625 K.
+		{[]string{"--json", "p=28inHg(vac)", "x=0"},
+			map[string]float64{"p": 6506.118070451994, "T": 310.79520207393625, "region": 4}, 0.0},
+		// 10 kgf/cm2 gauge, 1 kgf/cm2 = 98066.5 Pa (NIST SP 811 (2008) App. B.8, exact).
+		// python3-iapws: IAPWS97(P=1.08199, x=1) -> T 456.48887096876143 K, h 2780.063389667929 kJ/kg.
+		{[]string{"--json", "p=10kg/cm2g", "x=1"},
+			map[string]float64{"p": 1081990, "T": 456.48887096876143, "h": 2780063.389667929, "region": 4}, 1.0},
+		// 150 kcal/kg, 1 kcal_IT = 4186.8 J (NIST SP 811 (2008) App. B.8, exact).
+		// python3-iapws: IAPWS97(P=1, h=628.02) -> T 422.09248615238215 K, s 1.830588502916356.
+		{[]string{"--json", "p=10bar", "h=150kcal/kg"},
+			map[string]float64{"p": 1e6, "T": 422.09248615238215, "s": 1830.588502916356, "region": 1}, nil},
 	}
 	for _, tt := range tests {
 		var out, errb bytes.Buffer
@@ -99,6 +112,13 @@ func TestPropsErrors(t *testing.T) {
 		{[]string{"p=1MPa", "x=1.5"}, "x"},
 		{[]string{"p=-20psig", "x=1"}, "pressure"},
 		{[]string{"q=1", "x=1"}, "q"},
+		// A pressure needs its reading; psi, psid and a bare column state a difference only.
+		{[]string{"p=5psi", "x=1"}, "p: 5psi does not say whether it is absolute or gauge: write 5psia or 5psig"},
+		{[]string{"p=5psid", "x=1"}, "write 5psia or 5psig"},
+		{[]string{"p=28 inHg", "x=0"}, "p: 28 inHg does not say whether it is absolute or a vacuum below the site atmosphere: write 28inHg(abs) or 28inHg(vac)"},
+		{[]string{"p=700mmHg", "x=0"}, "write 700mmHg(abs) or 700mmHg(vac)"},
+		{[]string{"--atm", "14.2psi", "p=1bar", "x=0"}, "--atm: 14.2psi does not say"},
+		{[]string{"--atm", "1inHg(vac)", "p=1bar", "x=0"}, "absolute pressure, not inHg(vac)"},
 	}
 	for _, tt := range tests {
 		var out, errb bytes.Buffer

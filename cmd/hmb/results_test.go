@@ -55,7 +55,11 @@ func TestEveryResultRoundTrips(t *testing.T) {
 					if math.IsNaN(v) {
 						continue // not solved, or a quality of a single-phase state
 					}
-					fmt.Fprintf(&b, "expect %s %s = %s within 0.1 %%\n", name, r.Name, disp.Show(r.Dim, v))
+					tol := "0.1 %"
+					if r.Dim == units.Temperature { // a % of a temperature is refused (HMB319)
+						tol = disp.Delta(r.Dim, 0.05)
+					}
+					fmt.Fprintf(&b, "expect %s %s = %s within %s\n", name, r.Name, disp.Show(r.Dim, v), tol)
 					total++
 				}
 			}

@@ -34,6 +34,9 @@ const (
 	CodeEntryForm      = "HMB314"
 	CodeStreamList     = "HMB315"
 	CodeNegativeDrop   = "HMB316"
+	CodeNoReading      = "HMB317"
+	CodeRelativeDelta  = "HMB318"
+	CodeRelativeTemp   = "HMB319"
 )
 
 // Codes documents the checker's diagnostic codes.
@@ -66,4 +69,7 @@ var Codes = []model.CodeInfo{
 	{Code: CodeEntryForm, Name: "names-versus-value", Severity: model.Error, Summary: "names where a value is needed, or a value where names are", Help: "This entry takes a value, not stream names (or names, not a value)."},
 	{Code: CodeStreamList, Name: "list-with-label", Severity: model.Error, Summary: "label or block on a list of several stream names", Help: "A label or block applies to one stream; declare the streams separately."},
 	{Code: CodeNegativeDrop, Name: "negative-pressure-drop", Severity: model.Error, Summary: "pressure drop (dp, dp_hot, dp_cold) below zero", Help: "A pressure drop is inlet minus outlet pressure and cannot be below zero."},
+	{Code: CodeNoReading, Name: "pressure-without-reading", Severity: model.Error, Summary: "pressure in a unit that does not say absolute, gauge or vacuum (psi, inHg, inH2O, mmHg, kgf/cm2)", Help: "A bare psi or liquid column states a difference only. Write the reading: psia or psig; inHg(abs) or inHg(vac) (a vacuum below the site atmosphere); kgf/cm2(a) or kgf/cm2(g)."},
+	{Code: CodeRelativeDelta, Name: "gauge-unit-on-difference", Severity: model.Error, Summary: "gauge or vacuum unit on a pressure difference (dp 5 psig)", Help: "A pressure drop is a difference, not a reading against the atmosphere: write it in psi (psid), bar, kPa or inHg; to state the outlet pressure, give p on the outlet stream."},
+	{Code: CodeRelativeTemp, Name: "relative-temperature-tolerance", Severity: model.Error, Summary: "relative (%) tolerance on a temperature", Help: "A percentage of a temperature depends on where its scale puts zero (2 % of 250 C is 5 K, of 523 K is 10 K): give the tolerance in K, C, F or R."},
 }

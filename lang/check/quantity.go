@@ -3,6 +3,7 @@ package check
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"hmb/lang/ast"
 	"hmb/thermo/units"
@@ -17,8 +18,14 @@ func spelling(q *ast.Quantity) string {
 }
 
 // unitOf looks up q's unit spelling and checks its dimension. what names the quantity in
-// messages ("p", "efficiency of T1"). A temperature difference unit is accepted where allowDiff.
+// messages ("p", "efficiency of T1"). A temperature difference unit is accepted where allowDiff,
+// which also says that q is a difference (a tolerance), for the units an unknown one lists.
 func (c *checker) unitOf(q *ast.Quantity, want units.Dim, what string, allowDiff bool) (units.Unit, bool) {
+	return c.unitIn(q, want, what, allowDiff, allowDiff)
+}
+
+// unitIn is unitOf for a value that is a difference (delta) or not.
+func (c *checker) unitIn(q *ast.Quantity, want units.Dim, what string, allowDiff, delta bool) (units.Unit, bool) {
 	if math.IsInf(q.Value, 0) {
 		c.errorf(CodeRange, q, "%s is too large a number", q.Raw)
 		return units.Unit{}, false
@@ -26,9 +33,12 @@ func (c *checker) unitOf(q *ast.Quantity, want units.Dim, what string, allowDiff
 	u, err := c.lookupUnit(spelling(q))
 	if err != nil {
 		d := c.errorf(CodeUnknownUnit, q.Unit, "unknown unit %s", q.Unit.Name)
-		if ue, ok := err.(*units.UnknownError); ok && ue.Suggestion != "" {
-			d.Message += fmt.Sprintf("; did you mean %s?", ue.Suggestion)
-			d.Fix = ue.Suggestion
+		if s, ok := units.Nearest(q.Unit.Name, fitting(want, delta)); ok {
+			d.Message += fmt.Sprintf("; did you mean %s?", s)
+			d.Fix = s
+		}
+		if want != units.Dimensionless {
+			d.Message += fmt.Sprintf(" (%s units: %s)", want, accepted(want, delta))
 		}
 		return u, false
 	}
@@ -87,17 +97,81 @@ func examples(d units.Dim) string {
 	return si + " or " + us
 }
 
+// fitting lists the spellings that fit a value of dimension d, a difference (delta) or not, for a
+// suggestion: a misspelt unit is taken to be one of the quantity expected.
+func fitting(d units.Dim, delta bool) []string {
+	var out []string
+	for _, s := range units.Spellings(d) {
+		if u, err := units.Lookup(s); err == nil && (delta && !u.Relative() || !delta && u.Level()) {
+			out = append(out, s)
+		}
+	}
+	return out
+}
+
+// accepted lists the canonical units of a dimension for a message: for a pressure difference
+// (delta) those that do not read from the atmosphere, for a pressure those that say their reading.
+func accepted(d units.Dim, delta bool) string {
+	var syms []string
+	for _, u := range units.Symbols(d) {
+		if delta && u.Relative() || !delta && !u.Level() {
+			continue
+		}
+		syms = append(syms, u.Symbol())
+	}
+	return strings.Join(syms, ", ")
+}
+
 // convert converts q to SI as a value of dimension want (delta: a difference, without offset or
-// atmosphere). ok is false after a report.
+// atmosphere). A pressure itself needs a unit that says its reading (psia, not psi); a pressure
+// difference one that does not read from the atmosphere (psi, not psig). ok is false after a
+// report.
 func (c *checker) convert(q *ast.Quantity, want units.Dim, what string, delta bool) (si float64, u units.Unit, ok bool) {
-	u, ok = c.unitOf(q, want, what, false)
+	u, ok = c.unitIn(q, want, what, false, delta)
 	if !ok {
 		return 0, u, false
 	}
 	if delta {
+		if u.Relative() {
+			du := u.DeltaUnit()
+			d := c.errorf(CodeRelativeDelta, q.Unit, "%s %s %s is a %s reading, but %s is a pressure difference: write %s %s (to state the outlet pressure, give p on the outlet stream)",
+				what, q.Raw, q.Unit.Name, readingWord(u.Reading()), what, q.Raw, du.Symbol())
+			d.Fix = du.Symbol()
+			return 0, u, false
+		}
 		return u.DeltaToSI(q.Value), u, true
 	}
+	if !u.Level() {
+		c.noReading(q, u, what)
+		return 0, u, false
+	}
 	return u.ToSI(q.Value, c.m.Atm), u, true
+}
+
+// noReading reports a pressure written in a unit that states differences only.
+func (c *checker) noReading(q *ast.Quantity, u units.Unit, what string) {
+	var words, spell []string
+	for _, r := range u.Readings() {
+		w := readingWord(r.Reading())
+		if r.Reading() == units.Vacuum {
+			w = "a vacuum below the site atmosphere"
+		}
+		words = append(words, w)
+		spell = append(spell, q.Raw+" "+r.Symbol())
+	}
+	c.errorf(CodeNoReading, q.Unit, "%s %s %s does not say whether it is %s: write %s",
+		what, q.Raw, q.Unit.Name, strings.Join(words, " or "), joinOr(spell))
+}
+
+// readingWord names a reading in a sentence: "a gauge reading", "absolute".
+func readingWord(r units.Reading) string {
+	switch r {
+	case units.Gauge:
+		return "gauge"
+	case units.Vacuum:
+		return "vacuum"
+	}
+	return "absolute"
 }
 
 // tolerance converts a stated tolerance on a value of dimension want, given in u, to an absolute SI
@@ -107,6 +181,15 @@ func (c *checker) tolerance(t *ast.Tol, val *ast.Quantity, u units.Unit, want un
 	a := t.Amount
 	if a.Value < 0 {
 		c.errorf(CodeTolerance, a, "the tolerance of %s is below zero", what)
+		return 0, false
+	}
+	if a.Unit != nil && a.Unit.Name == "%" && want == units.Temperature {
+		abs := "K"
+		if u.US() {
+			abs = "F"
+		}
+		c.errorf(CodeRelativeTemp, a, "a tolerance of %s %% on a temperature has no fixed meaning (a percentage depends on where the scale puts zero): give it in degrees, such as ± %s %s",
+			a.Raw, a.Raw, abs)
 		return 0, false
 	}
 	if a.Unit != nil && a.Unit.Name == "%" && want != units.Dimensionless {

@@ -77,7 +77,7 @@ func (c *checker) setting(s *ast.Setting) {
 		v, u, ok := c.convert(s.Qty, units.Pressure, key, false)
 		switch {
 		case !ok:
-		case u.Gauge():
+		case u.Relative():
 			c.errorf(CodeSettingValue, s.Qty, "the atmosphere is an absolute pressure, not %s", u.Symbol())
 		case v <= 0:
 			c.errorf(CodeImpossible, s.Qty, "the atmosphere must be above zero")

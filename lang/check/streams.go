@@ -136,10 +136,14 @@ func (c *checker) plausible(prop model.Prop, q *ast.Quantity, v float64, u units
 		}
 	case model.P:
 		if v <= 0 {
-			if u.Gauge() {
+			switch {
+			case u.Reading() == units.Vacuum:
+				c.errorf(CodeImpossible, q, "p %s %s is a vacuum at or beyond zero absolute: at this site's atmosphere a full vacuum is %s %s",
+					q.Raw, spelling(q), units.Format(u.DeltaFromSI(c.m.Atm), 4), spelling(q))
+			case u.Gauge():
 				c.errorf(CodeImpossible, q, "p %s %s is at or below zero absolute: at this site's atmosphere a full vacuum is -%s %s",
 					q.Raw, spelling(q), units.Format(u.DeltaFromSI(c.m.Atm), 4), spelling(q))
-			} else {
+			default:
 				c.errorf(CodeImpossible, q, "p %s %s is not above zero absolute", q.Raw, spelling(q))
 			}
 			return false

@@ -151,8 +151,17 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 	if u.Symbol() != spelling {
 		fmt.Fprintf(&b, ", written `%s` in canonical form", u.Symbol())
 	}
-	if u.Gauge() {
+	switch u.Reading() {
+	case units.Gauge:
 		fmt.Fprintf(&b, ", gauge (above a site atmosphere of %s Pa)", units.Format(syn.Atm, 6))
+	case units.Vacuum:
+		fmt.Fprintf(&b, ", vacuum (below a site atmosphere of %s Pa)", units.Format(syn.Atm, 6))
+	case units.Difference:
+		var rs []string
+		for _, r := range u.Readings() {
+			rs = append(rs, "`"+r.Symbol()+"`")
+		}
+		fmt.Fprintf(&b, ", a difference only (a pressure itself is %s)", strings.Join(rs, " or "))
 	}
 	base := units.Base(u.Dim()).Symbol()
 	if t > 0 && syn.Tokens[t-1].Kind == cache.NumberToken {
@@ -161,7 +170,7 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 		if v, _, err := units.ParseQuantity(raw); err == nil {
 			si := u.ToSI(v, syn.Atm)
 			fmt.Fprintf(&b, "\n\n%s %s = %s %s", raw, spelling, units.Format(si, 7), base)
-			if u.Gauge() {
+			if u.Relative() {
 				b.WriteString(" absolute")
 			}
 			return b.String()

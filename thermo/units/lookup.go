@@ -97,3 +97,19 @@ func Spellings(d Dim) []string {
 	slices.Sort(out)
 	return out
 }
+
+// Symbols returns the canonical symbol of every unit of a dimension, in the table's order (SI
+// first within a kind), for messages that list what is accepted. The bare number is left out.
+func Symbols(d Dim) []Unit {
+	var out []Unit
+	for i, u := range defs {
+		if u.dim == d && u.sym != "" {
+			out = append(out, Unit{uint8(i)})
+		}
+	}
+	return out
+}
+
+// Alternatives returns the unit's other accepted spellings (bara, bar(a) for bar), in the table's
+// order; letter-case variants are not listed.
+func (u Unit) Alternatives() []string { return slices.Clone(u.def().alt) }

@@ -54,15 +54,8 @@ func ShowIn(u Unit, si, atm float64) string { return label(Number(u, u.FromSI(si
 func ShowDelta(u Unit, si float64) string { return label(Number(u, u.DeltaFromSI(si)), DeltaSymbol(u)) }
 
 // DeltaSymbol is the label of a difference measured in u: a pressure difference is neither
-// absolute nor gauge (psi, kPa); every other unit keeps its symbol.
-func DeltaSymbol(u Unit) string {
-	switch s := u.Symbol(); s {
-	case "psia", "psig":
-		return "psi"
-	default:
-		return strings.TrimSuffix(s, "(g)")
-	}
-}
+// absolute nor gauge nor vacuum (psi, kPa, inHg); every other unit keeps its symbol.
+func DeltaSymbol(u Unit) string { return u.DeltaUnit().Symbol() }
 
 func label(num, sym string) string {
 	if sym == "" || num == NotANumber {
@@ -129,7 +122,7 @@ func Trim(v float64) string {
 // the bare number for a fraction): the unit hmb computes in.
 func Base(d Dim) Unit {
 	for i, df := range defs {
-		if df.dim == d && df.scale == 1 && df.offset == 0 && !df.gauge {
+		if df.dim == d && df.scale == 1 && df.offset == 0 && df.reading == Absolute {
 			return Unit{uint8(i)}
 		}
 	}

@@ -32,6 +32,18 @@ const (
 	// standard gravity; NIST SP 811 (2008) Appendix B.8 lists 2.490 889 E+02 Pa.
 	paPerInH2O = 1000 * standardGravity * mPerInch
 
+	// Conventional millimetre of mercury, as the inch above; NIST SP 811 (2008) Appendix B.8
+	// lists 1.333 224 E+02 Pa.
+	paPerMmHg = 13595.1 * standardGravity * 1e-3
+
+	// Kilogram-force per square centimetre: the kilogram-force is 1 kg under standard gravity;
+	// NIST SP 811 (2008) Appendix B.8 lists 9.806 65 E+04 Pa (exact).
+	paPerKgfCm2 = standardGravity / 1e-4
+
+	// International Table calorie, 5th International Conference on the Properties of Steam
+	// (London, 1956): 4.1868 J exactly (NIST SP 811 (2008) Appendix B.8, cal_IT).
+	jPerKcal = 4186.8
+
 	// Standard atmosphere, 10th CGPM (1954).
 	paPerAtm = 101325.0
 	paPerBar = 1e5
@@ -43,14 +55,15 @@ const (
 // StandardAtmosphere is the default site atmosphere for gauge pressures, in Pa.
 const StandardAtmosphere = paPerAtm
 
-// def is one unit: SI = (v + offset) * scale, or v*scale + atm for gauge units.
+// def is one unit: SI = (v + offset) * scale; v*scale + atm for gauge units, atm - v*scale for
+// vacuum readings.
 type def struct {
-	sym    string
-	dim    Dim
-	scale  float64
-	offset float64
-	gauge  bool
-	us     bool // US customary family (for choosing a display system from what was typed)
+	sym     string
+	dim     Dim
+	scale   float64
+	offset  float64
+	reading Reading
+	us      bool // US customary family (for choosing a display system from what was typed)
 	// strict units accept no case variants: the case of a leading M or m is the difference
 	// between mega and milli. Single-letter spellings are always strict (K is not k).
 	strict bool
@@ -64,20 +77,34 @@ var defs = []def{
 	{sym: "%", dim: Dimensionless, scale: 0.01},
 	{sym: "frac", dim: Dimensionless, scale: 1},
 
-	// Pressure: absolute unless marked gauge.
+	// Pressure: absolute unless marked otherwise. SI units are absolute by definition; psi and the
+	// bare columns (inHg, inH2O, mmHg) and kgf/cm2 say no reading, so they state differences only
+	// (a drop, a tolerance) and a pressure itself needs its reading spelt out.
 	{sym: "Pa", dim: Pressure, scale: 1},
+	{sym: "hPa", dim: Pressure, scale: 100},
 	{sym: "kPa", dim: Pressure, scale: 1e3, alt: []string{"kPa(a)", "kPaa"}},
 	{sym: "MPa", dim: Pressure, scale: 1e6, strict: true, alt: []string{"MPa(a)", "MPaa"}},
 	{sym: "bar", dim: Pressure, scale: paPerBar, alt: []string{"bara", "bar(a)"}},
 	{sym: "mbar", dim: Pressure, scale: paPerBar / 1000, strict: true},
-	{sym: "psia", us: true, dim: Pressure, scale: paPerPsi, alt: []string{"psi", "psi(a)"}},
-	{sym: "inHg", us: true, dim: Pressure, scale: paPerInHg},
-	{sym: "inH2O", us: true, dim: Pressure, scale: paPerInH2O},
+	{sym: "psia", us: true, dim: Pressure, scale: paPerPsi, alt: []string{"psi(a)"}},
 	{sym: "atm", dim: Pressure, scale: paPerAtm},
-	{sym: "psig", us: true, dim: Pressure, scale: paPerPsi, gauge: true, alt: []string{"psi(g)"}},
-	{sym: "bar(g)", dim: Pressure, scale: paPerBar, gauge: true, alt: []string{"barg"}},
-	{sym: "kPa(g)", dim: Pressure, scale: 1e3, gauge: true, alt: []string{"kPag"}},
-	{sym: "MPa(g)", dim: Pressure, scale: 1e6, gauge: true, strict: true, alt: []string{"MPag"}},
+	{sym: "psig", us: true, dim: Pressure, scale: paPerPsi, reading: Gauge, alt: []string{"psi(g)"}},
+	{sym: "bar(g)", dim: Pressure, scale: paPerBar, reading: Gauge, alt: []string{"barg"}},
+	{sym: "kPa(g)", dim: Pressure, scale: 1e3, reading: Gauge, alt: []string{"kPag"}},
+	{sym: "MPa(g)", dim: Pressure, scale: 1e6, reading: Gauge, strict: true, alt: []string{"MPag"}},
+	{sym: "psi", us: true, dim: Pressure, scale: paPerPsi, reading: Difference, alt: []string{"psid", "psi(d)"}},
+	{sym: "inHg(abs)", us: true, dim: Pressure, scale: paPerInHg, alt: []string{"inHg(a)"}},
+	{sym: "inHg(vac)", us: true, dim: Pressure, scale: paPerInHg, reading: Vacuum},
+	{sym: "inHg", us: true, dim: Pressure, scale: paPerInHg, reading: Difference},
+	{sym: "inH2O(abs)", us: true, dim: Pressure, scale: paPerInH2O, alt: []string{"inH2O(a)"}},
+	{sym: "inH2O(vac)", us: true, dim: Pressure, scale: paPerInH2O, reading: Vacuum},
+	{sym: "inH2O", us: true, dim: Pressure, scale: paPerInH2O, reading: Difference},
+	{sym: "mmHg(abs)", dim: Pressure, scale: paPerMmHg, alt: []string{"mmHg(a)"}},
+	{sym: "mmHg(vac)", dim: Pressure, scale: paPerMmHg, reading: Vacuum},
+	{sym: "mmHg", dim: Pressure, scale: paPerMmHg, reading: Difference},
+	{sym: "kgf/cm2(a)", dim: Pressure, scale: paPerKgfCm2, alt: []string{"kgf/cm2a", "kg/cm2(a)", "kg/cm2a"}},
+	{sym: "kgf/cm2(g)", dim: Pressure, scale: paPerKgfCm2, reading: Gauge, alt: []string{"kgf/cm2g", "kg/cm2(g)", "kg/cm2g"}},
+	{sym: "kgf/cm2", dim: Pressure, scale: paPerKgfCm2, reading: Difference, alt: []string{"kg/cm2"}},
 
 	// Temperature (absolute scales).
 	{sym: "K", dim: Temperature, scale: 1, alt: []string{"degK"}},
@@ -96,6 +123,7 @@ var defs = []def{
 	{sym: "kJ/kg", dim: SpecificEnergy, scale: 1e3},
 	{sym: "MJ/kg", dim: SpecificEnergy, scale: 1e6, strict: true},
 	{sym: "Btu/lbm", us: true, dim: SpecificEnergy, scale: jPerBtu / kgPerLbm, alt: []string{"Btu/lb"}},
+	{sym: "kcal/kg", dim: SpecificEnergy, scale: jPerKcal},
 
 	// Specific entropy; a kelvin and a degree Celsius (a rankine and a degree Fahrenheit) are the
 	// same size, so the per-degree spellings share a unit.
@@ -103,7 +131,12 @@ var defs = []def{
 		"J/(kg·K)", "J/(kg*K)", "J/(kg.K)", "J/kgK", "J/kg-K", "J/kg/K", "J/kg·K"}},
 	{sym: "kJ/(kg K)", dim: SpecificEntropy, scale: 1e3, alt: []string{
 		"kJ/(kg·K)", "kJ/(kg*K)", "kJ/(kg.K)", "kJ/kgK", "kJ/kg-K", "kJ/kg/K", "kJ/kg·K",
-		"kJ/(kg C)", "kJ/kgC", "kJ/kg-C", "kJ/kg-°C", "kJ/kg·°C"}},
+		"kJ/(kg C)", "kJ/(kg·C)", "kJ/(kg*C)", "kJ/(kg.C)", "kJ/(kg-C)", "kJ/kgC", "kJ/kg-C", "kJ/kg/C",
+		"kJ/(kg °C)", "kJ/(kg·°C)", "kJ/(kg*°C)", "kJ/(kg.°C)", "kJ/(kg-°C)", "kJ/kg°C", "kJ/kg-°C", "kJ/kg·°C", "kJ/kg/°C",
+		"kJ/(kg degC)", "kJ/(kg*degC)", "kJ/(kg.degC)", "kJ/(kg-degC)", "kJ/kgdegC", "kJ/kg-degC", "kJ/kg/degC"}},
+	{sym: "kcal/(kg K)", dim: SpecificEntropy, scale: jPerKcal, alt: []string{
+		"kcal/(kg·K)", "kcal/(kg*K)", "kcal/kgK", "kcal/kg-K", "kcal/kg/K",
+		"kcal/(kg C)", "kcal/(kg °C)", "kcal/(kg·°C)", "kcal/(kg*C)", "kcal/kgC", "kcal/kg-C", "kcal/kg-°C", "kcal/kg/C"}},
 	{sym: "Btu/(lbm R)", us: true, dim: SpecificEntropy, scale: jPerBtu / kgPerLbm / kPerR, alt: []string{
 		"Btu/(lbm·R)", "Btu/(lbm*R)", "Btu/lbmR", "Btu/lbm-R", "Btu/lbm/R", "Btu/lbm-°R",
 		"Btu/(lb R)", "Btu/lb-R", "Btu/lbR",
@@ -131,11 +164,19 @@ var defs = []def{
 	{sym: "lbm/min", us: true, dim: MassFlow, scale: kgPerLbm / 60, alt: []string{"lb/min"}},
 	{sym: "lbm/h", us: true, dim: MassFlow, scale: kgPerLbm / 3600, alt: []string{"lb/h", "lbm/hr", "lb/hr", "pph"}},
 	{sym: "klbm/h", us: true, dim: MassFlow, scale: 1000 * kgPerLbm / 3600, alt: []string{"klb/h", "klb/hr", "kpph"}},
+	// M and MM are the Roman thousand and million of US trade usage (as in MBH, MMBtu/h), never
+	// mega: common practice, no source. Strict, so "mlb/h" is not read as either.
+	{sym: "Mlb/h", us: true, dim: MassFlow, scale: 1000 * kgPerLbm / 3600, strict: true, alt: []string{"Mlb/hr", "Mlbm/h", "Mlbm/hr"}},
+	{sym: "MMlb/h", us: true, dim: MassFlow, scale: 1e6 * kgPerLbm / 3600, strict: true, alt: []string{"MMlb/hr", "MMlbm/h", "MMlbm/hr"}},
 
 	// Power. MBH (thousand Btu/h, Roman M) is HVAC trade usage: common practice, no source.
 	{sym: "W", dim: Power, scale: 1},
 	{sym: "kW", dim: Power, scale: 1e3},
 	{sym: "MW", dim: Power, scale: 1e6, strict: true},
+	{sym: "kJ/h", dim: Power, scale: 1e3 / 3600, alt: []string{"kJ/hr"}},
+	{sym: "MJ/h", dim: Power, scale: 1e6 / 3600, strict: true, alt: []string{"MJ/hr"}},
+	{sym: "GJ/h", dim: Power, scale: 1e9 / 3600, alt: []string{"GJ/hr"}},
+	{sym: "kcal/h", dim: Power, scale: jPerKcal / 3600, alt: []string{"kcal/hr"}},
 	{sym: "Btu/h", us: true, dim: Power, scale: jPerBtu / 3600, alt: []string{"Btu/hr"}},
 	{sym: "MBH", us: true, dim: Power, scale: 1e3 * jPerBtu / 3600, alt: []string{"kBtu/h", "kBtu/hr"}},
 	{sym: "MMBtu/h", us: true, dim: Power, scale: 1e6 * jPerBtu / 3600, alt: []string{"MMBtu/hr"}},

@@ -44,6 +44,15 @@ var dimNames = [numDims]string{
 	EntropyRate:     "rate of entropy generation",
 }
 
+// Dims lists every dimension, in the order of the constants.
+func Dims() []Dim {
+	out := make([]Dim, numDims)
+	for i := range out {
+		out[i] = Dim(i)
+	}
+	return out
+}
+
 // String names the dimension in the words a diagnostic uses ("expected pressure, got ...").
 func (d Dim) String() string {
 	if int(d) < len(dimNames) {
@@ -74,8 +83,82 @@ func (u Unit) Dim() Dim { return u.def().dim }
 // US reports whether the unit belongs to the US customary family (psia, F, Btu/lbm, lbm/h...).
 func (u Unit) US() bool { return u.def().us }
 
+// Reading says where a pressure unit's zero lies: the reading a number in it is.
+type Reading uint8
+
+const (
+	Absolute   Reading = iota // zero at vacuum; every unit that is not a pressure reads so too
+	Gauge                     // zero at the site atmosphere, positive above it (psig, bar(g))
+	Vacuum                    // zero at the site atmosphere, positive below it (inHg(vac))
+	Difference                // no zero: a pressure difference only (psi, psid, bare inHg)
+)
+
+var readingNames = [...]string{
+	Absolute:   "absolute",
+	Gauge:      "gauge (above the site atmosphere)",
+	Vacuum:     "vacuum (below the site atmosphere)",
+	Difference: "a pressure difference (no zero of its own)",
+}
+
+func (r Reading) String() string {
+	if int(r) < len(readingNames) {
+		return readingNames[r]
+	}
+	return fmt.Sprintf("Reading(%d)", uint8(r))
+}
+
+// Reading is where the unit's zero lies. Only pressure units read other than Absolute.
+func (u Unit) Reading() Reading { return u.def().reading }
+
 // Gauge reports whether the unit measures pressure above the site atmosphere.
-func (u Unit) Gauge() bool { return u.def().gauge }
+func (u Unit) Gauge() bool { return u.def().reading == Gauge }
+
+// Level reports whether a number in u can state a pressure (or any other quantity) itself, not
+// only a difference: false for psi, psid and the bare mercury and water columns, which say
+// neither absolute nor gauge nor vacuum.
+func (u Unit) Level() bool { return u.def().reading != Difference }
+
+// Relative reports whether the unit reads from the site atmosphere (gauge or vacuum), so that a
+// pressure difference written in it is ambiguous.
+func (u Unit) Relative() bool { r := u.def().reading; return r == Gauge || r == Vacuum }
+
+// Readings lists the spellings that state a level in the same unit as u, when u states only a
+// difference: psia and psig for psi, inHg(abs) and inHg(vac) for inHg. Nil for other units.
+func (u Unit) Readings() []Unit {
+	d := u.def()
+	if d.reading != Difference {
+		return nil
+	}
+	var out []Unit
+	for i := range defs {
+		if e := &defs[i]; e.dim == d.dim && e.scale == d.scale && e.reading != Difference {
+			out = append(out, Unit{uint8(i)})
+		}
+	}
+	return out
+}
+
+// DeltaUnit is the unit a difference of two values in u is written in: psi for psia and psig,
+// bar for bar(g), inHg for inHg(vac); u itself for other units.
+func (u Unit) DeltaUnit() Unit {
+	d := u.def()
+	if d.dim != Pressure || d.reading == Difference {
+		return u
+	}
+	for i := range defs {
+		if e := &defs[i]; e.dim == d.dim && e.scale == d.scale && e.reading == Difference {
+			return Unit{uint8(i)}
+		}
+	}
+	if d.reading == Gauge {
+		for i := range defs {
+			if e := &defs[i]; e.dim == d.dim && e.scale == d.scale && e.reading == Absolute {
+				return Unit{uint8(i)}
+			}
+		}
+	}
+	return u
+}
 
 // String returns the canonical symbol, so units print as they are spelled.
 func (u Unit) String() string { return u.Symbol() }
@@ -84,10 +167,17 @@ func (u Unit) String() string { return u.Symbol() }
 // kg/s, W, m, m/s, W/K, and a plain fraction for dimensionless units. atm is the site atmosphere in Pa and
 // is used only by gauge units. A gauge value below -atm yields a negative absolute pressure; the
 // caller decides how to report it.
+//
+// A vacuum reading is the site atmosphere less the value (28 inHg(vac) at 14.696 psia is 1.9 inHg
+// absolute). A unit that states only a difference (Level is false) converts here as if absolute;
+// callers refuse it where a pressure itself is meant.
 func (u Unit) ToSI(v, atm float64) float64 {
 	d := u.def()
-	if d.gauge {
+	switch d.reading {
+	case Gauge:
 		return v*d.scale + atm
+	case Vacuum:
+		return atm - v*d.scale
 	}
 	return (v + d.offset) * d.scale
 }
@@ -95,8 +185,11 @@ func (u Unit) ToSI(v, atm float64) float64 {
 // FromSI is the inverse of ToSI.
 func (u Unit) FromSI(si, atm float64) float64 {
 	d := u.def()
-	if d.gauge {
+	switch d.reading {
+	case Gauge:
 		return (si - atm) / d.scale
+	case Vacuum:
+		return (atm - si) / d.scale
 	}
 	return si/d.scale - d.offset
 }

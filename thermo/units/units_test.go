@@ -71,6 +71,27 @@ func TestFactors(t *testing.T) {
 		{"Btu/h/R", 0.52752792631, 1e-10, "1055.05585262 J / 3600 s / (5/9 K): Btu_IT (1956) and the rankine"},
 		{"km", 1000, 0, "SI prefix"},
 		{"%", 0.01, 0, "per cent"},
+		{"hPa", 100, 0, "SI prefix"},
+		{"psi", 6.894757e3, sp7, sp811 + " (a pressure difference)"},
+		{"psid", 6.894757e3, sp7, sp811 + " (a pressure difference)"},
+		{"mmHg", 1.333224e2, sp7, sp811 + ", millimeter of mercury, conventional"},
+		{"mmHg(abs)", 1.333224e2, sp7, sp811 + ", millimeter of mercury, conventional"},
+		{"inHg(abs)", 3.386389e3, sp7, sp811 + ", inch of mercury, conventional (32 F)"},
+		{"inH2O(abs)", 2.490889e2, sp7, sp811 + ", inch of water, conventional"},
+		{"kgf/cm2", 9.80665e4, 1e-15, sp811 + ", kilogram-force per square centimeter (exact)"},
+		{"kgf/cm2(a)", 9.80665e4, 1e-15, sp811 + ", kilogram-force per square centimeter (exact)"},
+		{"kg/cm2a", 9.80665e4, 1e-15, sp811 + ", kilogram-force per square centimeter (exact)"},
+		{"kcal/kg", 4186.8, 0, sp811 + ", calorie_IT per gram = 4.1868 E+03 J/kg (exact)"},
+		{"kcal/(kg K)", 4186.8, 0, sp811 + ", calorie_IT per gram kelvin = 4.1868 E+03 (exact)"},
+		{"kJ/(kg·°C)", 1e3, 0, "SI prefix; a degree Celsius is a kelvin in size"},
+		{"kJ/(kg*C)", 1e3, 0, "SI prefix; a degree Celsius is a kelvin in size"},
+		{"kJ/kg/degC", 1e3, 0, "SI prefix; a degree Celsius is a kelvin in size"},
+		{"kJ/h", 1 / 3.6, 1e-15, "SI prefix and the hour (3600 s)"},
+		{"GJ/h", 1e9 / 3600, 1e-15, "SI prefix and the hour (3600 s)"},
+		{"MJ/h", 1e6 / 3600, 1e-15, "SI prefix and the hour (3600 s)"},
+		{"kcal/h", 1.163, 1e-15, sp811 + ", calorie_IT = 4.1868 J (exact), per 3600 s"},
+		{"Mlb/h", 1.259979e-1, sp7, sp811 + ", pound per hour x 1000 (M = thousand: common practice, no source)"},
+		{"MMlb/h", 1.259979e2, sp7, sp811 + ", pound per hour x 1e6 (MM = million: common practice, no source)"},
 	}
 	for _, tt := range tests {
 		u := mustLookup(t, tt.unit)
@@ -181,6 +202,78 @@ func TestGauge(t *testing.T) {
 	}
 }
 
+// Vacuum readings are the site atmosphere less the value; a difference-only unit has no level.
+func TestReadings(t *testing.T) {
+	const inHg = 3386.389 // NIST SP 811 (2008) App. B.8, inch of mercury, conventional, from memory
+	const mmHg = 133.3224 // NIST SP 811 (2008) App. B.8, millimeter of mercury, conventional, from memory
+	tests := []struct {
+		unit    string
+		reading Reading
+		v, atm  float64
+		wantPa  float64
+		source  string
+	}{
+		{"inHg(vac)", Vacuum, 28, StandardAtmosphere, 101325 - 28*inHg, "vacuum: atmosphere less the reading"},
+		{"inHg(vac)", Vacuum, 28, 84560, 84560 - 28*inHg, "below zero absolute at a site of 84.56 kPa: the caller's to flag"},
+		{"inHg(vac)", Vacuum, 0, 84560, 84560, "zero vacuum is the atmosphere"},
+		{"inHg(abs)", Absolute, 2, 84560, 2 * inHg, "absolute ignores the site"},
+		{"inHg(a)", Absolute, 2, 84560, 2 * inHg, "absolute ignores the site"},
+		{"mmHg(vac)", Vacuum, 700, StandardAtmosphere, 101325 - 700*mmHg, "vacuum: atmosphere less the reading"},
+		{"mmHg(abs)", Absolute, 60, StandardAtmosphere, 60 * mmHg, "absolute"},
+		{"inH2O(vac)", Vacuum, 10, StandardAtmosphere, 101325 - 10*249.0889, "NIST SP 811 inch of water, from memory"},
+		{"kgf/cm2(g)", Gauge, 10, StandardAtmosphere, 10*98066.5 + 101325, "NIST SP 811 kgf/cm2 (exact), gauge"},
+		{"kg/cm2g", Gauge, 10, 84560, 10*98066.5 + 84560, "NIST SP 811 kgf/cm2 (exact), gauge"},
+		{"psig", Gauge, 0, StandardAtmosphere, 101325, "gauge"},
+		{"psi", Difference, 5, StandardAtmosphere, 5 * 6894.757293168, "a difference converts by scale alone"},
+		{"psid", Difference, 5, StandardAtmosphere, 5 * 6894.757293168, "a difference converts by scale alone"},
+		{"inHg", Difference, 1, StandardAtmosphere, inHg, "a difference converts by scale alone"},
+		{"mmHg", Difference, 1, StandardAtmosphere, mmHg, "a difference converts by scale alone"},
+		{"kgf/cm2", Difference, 1, StandardAtmosphere, 98066.5, "a difference converts by scale alone"},
+		{"bar", Absolute, 1, StandardAtmosphere, 1e5, "SI pressures are absolute"},
+		{"hPa", Absolute, 1013.25, StandardAtmosphere, 101325, "SI pressures are absolute"},
+	}
+	for _, tt := range tests {
+		u := mustLookup(t, tt.unit)
+		if u.Reading() != tt.reading {
+			t.Errorf("%s reads %v, want %v", tt.unit, u.Reading(), tt.reading)
+		}
+		if u.Level() != (tt.reading != Difference) || u.Relative() != (tt.reading == Gauge || tt.reading == Vacuum) {
+			t.Errorf("%s: Level %v Relative %v", tt.unit, u.Level(), u.Relative())
+		}
+		got := u.ToSI(tt.v, tt.atm)
+		// SP 811 prints seven figures: half a unit in the last one, times the reading.
+		if math.Abs(got-tt.wantPa) > 5e-7*tt.v*u.DeltaToSI(1)+1e-9 {
+			t.Errorf("%g %s at %g Pa = %.10g Pa, want %.10g (%s)", tt.v, tt.unit, tt.atm, got, tt.wantPa, tt.source)
+		}
+		if back := u.FromSI(got, tt.atm); math.Abs(back-tt.v) > 1e-9*math.Max(1, tt.v) {
+			t.Errorf("%s: round trip %g -> %g", tt.unit, tt.v, back)
+		}
+		if d := u.DeltaToSI(1); !near(d, mustLookup(t, tt.unit).DeltaUnit().DeltaToSI(1), 0) {
+			t.Errorf("%s: delta unit %s has another size", tt.unit, u.DeltaUnit())
+		}
+	}
+	for _, tt := range []struct{ unit, delta, readings string }{
+		{"psia", "psi", ""}, {"psig", "psi", ""}, {"psi", "psi", "psia psig"}, {"psid", "psi", "psia psig"},
+		{"bar(g)", "bar", ""}, {"barg", "bar", ""}, {"kPa(g)", "kPa", ""}, {"MPa(g)", "MPa", ""}, {"bar", "bar", ""},
+		{"inHg(vac)", "inHg", ""}, {"inHg(abs)", "inHg", ""}, {"inHg", "inHg", "inHg(abs) inHg(vac)"},
+		{"inH2O", "inH2O", "inH2O(abs) inH2O(vac)"}, {"mmHg", "mmHg", "mmHg(abs) mmHg(vac)"},
+		{"kgf/cm2(g)", "kgf/cm2", ""}, {"kg/cm2", "kgf/cm2", "kgf/cm2(a) kgf/cm2(g)"},
+		{"C", "C", ""}, {"kg/s", "kg/s", ""},
+	} {
+		u := mustLookup(t, tt.unit)
+		if got := u.DeltaUnit().Symbol(); got != tt.delta {
+			t.Errorf("%s.DeltaUnit() = %s, want %s", tt.unit, got, tt.delta)
+		}
+		var rs []string
+		for _, r := range u.Readings() {
+			rs = append(rs, r.Symbol())
+		}
+		if got := strings.Join(rs, " "); got != tt.readings {
+			t.Errorf("%s.Readings() = %q, want %q", tt.unit, got, tt.readings)
+		}
+	}
+}
+
 // Every listed spelling resolves to its dimension, converts both ways, and its canonical symbol
 // looks up to the same unit. Case variants either reach the same unit or are refused.
 func TestRoundTripEverySpelling(t *testing.T) {
@@ -235,6 +328,9 @@ func TestLookupCase(t *testing.T) {
 		// Case carries meaning: kelvin is K, mega is M.
 		{"k", "!K"}, {"c", "!C"}, {"f", "!F"}, {"w", "!W"}, {"M", "!m"},
 		{"mpa", "!MPa"}, {"mw", "!MW"}, {"mj/kg", "!MJ/kg"}, {"Mbar", "!mbar"},
+		// M in a US flow unit is the Roman thousand; a lower-case m (milli) is not guessed.
+		{"mlb/h", "!Mlb/h"}, {"mmlb/h", "!MMlb/h"},
+		{"INHG(VAC)", "inHg(vac)"}, {"mmhg(abs)", "mmHg(abs)"}, {"KGF/CM2G", "kgf/cm2(g)"}, {"PSID", "psi"},
 	}
 	for _, tt := range tests {
 		u, err := Lookup(tt.in)
@@ -362,15 +458,16 @@ func TestSpellings(t *testing.T) {
 		d    Dim
 		want []string // must be present
 	}{
-		{Pressure, []string{"Pa", "kPa", "MPa", "bar", "mbar", "psia", "psi", "psig", "bar(g)", "barg", "bara", "kPa(g)", "kPag", "kPa(a)", "MPa(g)", "inHg", "inH2O", "atm"}},
+		{Pressure, []string{"Pa", "hPa", "kPa", "MPa", "bar", "mbar", "psia", "psi", "psid", "psig", "bar(g)", "barg", "bara", "kPa(g)", "kPag", "kPa(a)", "MPa(g)",
+			"inHg", "inHg(abs)", "inHg(vac)", "inH2O", "inH2O(abs)", "inH2O(vac)", "mmHg", "mmHg(abs)", "mmHg(vac)", "kgf/cm2(a)", "kgf/cm2(g)", "kgf/cm2", "atm"}},
 		{Temperature, []string{"K", "degC", "C", "°C", "degF", "F", "°F", "R", "degR", "°R"}},
 		{TemperatureDiff, []string{"dF", "dC", "dK", "dR"}},
-		{SpecificEnergy, []string{"J/kg", "kJ/kg", "MJ/kg", "Btu/lbm", "Btu/lb"}},
-		{SpecificEntropy, []string{"J/(kg K)", "kJ/(kg K)", "kJ/kgK", "kJ/kg-K", "Btu/(lbm R)", "Btu/lbm-R", "Btu/(lbm F)"}},
+		{SpecificEnergy, []string{"J/kg", "kJ/kg", "MJ/kg", "Btu/lbm", "Btu/lb", "kcal/kg"}},
+		{SpecificEntropy, []string{"J/(kg K)", "kJ/(kg K)", "kJ/kgK", "kJ/kg-K", "Btu/(lbm R)", "Btu/lbm-R", "Btu/(lbm F)", "kJ/(kg·°C)", "kJ/(kg C)", "kcal/(kg K)"}},
 		{SpecificVolume, []string{"m3/kg", "ft3/lbm", "L/kg"}},
 		{Density, []string{"kg/m3", "lbm/ft3"}},
-		{MassFlow, []string{"kg/s", "kg/h", "kg/min", "t/h", "lbm/s", "lbm/min", "lbm/h", "lb/h", "klb/h", "kpph"}},
-		{Power, []string{"W", "kW", "MW", "Btu/h", "MBH", "MMBtu/h", "hp", "TR", "ton"}},
+		{MassFlow, []string{"kg/s", "kg/h", "kg/min", "t/h", "lbm/s", "lbm/min", "lbm/h", "lb/h", "klb/h", "kpph", "Mlb/h", "MMlb/h"}},
+		{Power, []string{"W", "kW", "MW", "Btu/h", "MBH", "MMBtu/h", "hp", "TR", "ton", "kJ/h", "MJ/h", "GJ/h", "kcal/h"}},
 		{Length, []string{"m", "ft", "km"}},
 		{Dimensionless, []string{"%", "frac"}},
 	}
@@ -384,5 +481,19 @@ func TestSpellings(t *testing.T) {
 				t.Errorf("Spellings(%v) lacks %q", tt.d, w)
 			}
 		}
+	}
+}
+
+func TestSymbols(t *testing.T) {
+	var got []string
+	for _, u := range Symbols(MassFlow) {
+		got = append(got, u.Symbol())
+	}
+	want := "kg/s kg/min kg/h t/h lbm/s lbm/min lbm/h klbm/h Mlb/h MMlb/h"
+	if strings.Join(got, " ") != want {
+		t.Errorf("Symbols(MassFlow) = %q, want %q", strings.Join(got, " "), want)
+	}
+	if n := len(Symbols(Dimensionless)); n != 2 {
+		t.Errorf("Symbols(Dimensionless) has %d units, want %% and frac", n)
 	}
 }
