@@ -43,8 +43,8 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	format := fset.String("format", "text", "output format: text, json or sarif")
 	sys := addSystemFlags(fset)
 	quiet := fset.Bool("quiet", false, "diagnostics only, no result tables")
-	if err := fset.Parse(args); err != nil {
-		return usageErr("%v", err)
+	if err := parseFlags(fset, args, stdout); err != nil {
+		return err
 	}
 	switch *format {
 	case "text", "json", "sarif":

@@ -13,8 +13,8 @@ func runFmt(args []string, stdout, stderr io.Writer) error {
 	fset.SetOutput(io.Discard)
 	write := fset.Bool("w", false, "rewrite files in place")
 	check := fset.Bool("check", false, "list files whose layout differs; exit 1 if any")
-	if err := fset.Parse(args); err != nil {
-		return usageErr("%v", err)
+	if err := parseFlags(fset, args, stdout); err != nil {
+		return err
 	}
 	if *write && *check {
 		return usageErr("-w and --check exclude each other")

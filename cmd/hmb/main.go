@@ -3,39 +3,110 @@
 //	hmb check [--format text|json|sarif] [--si|--us] [--quiet] PATH...
 //	hmb fmt [-w] [--check] PATH...
 //	hmb props [--si|--us] [--json] NAME=VALUE NAME=VALUE
+//	hmb table | plot | report [options] FILE
 //	hmb lsp
+//
+// hmb COMMAND --help prints a command's usage and options.
 //
 // Exit status: 0 no errors, 1 errors found (or failed expectations), 2 usage or I/O error.
 package main
 
 import (
+	"errors"
+	"flag"
 	"fmt"
 	"io"
 	"os"
+	"strings"
 )
 
-const usage = `hmb: heat and material balances of steam and water systems
+// command is one subcommand as its usage shows it: the options and arguments it takes and what
+// it does (one line each).
+type command struct {
+	name, args string
+	doc        []string
+}
 
-usage:
-  hmb check [--format text|json|sarif] [--si|--us] [--quiet] PATH...
-        solve every calc file (*.hmb, directories recursively) and report problems
-  hmb fmt [-w] [--check] PATH...
-        print calc files in canonical layout (-w rewrites them, --check lists those that differ)
-  hmb props [--si|--us] [--json] [--atm P | --elevation Z] NAME=VALUE NAME=VALUE
-        water/steam state from two properties, e.g. hmb props p=150psig x=1
-        NAME is any two of p T h s x; gauge pressures read against --atm or --elevation
-  hmb table [--format md|csv|html] [--si|--us] [-o OUT] FILE
-        stream and unit tables of one solved calc file
-  hmb plot [--kind Ts|hs|ph] [--si|--us] [-o out.svg] FILE
-        property diagram (SVG) with the saturation dome, isobars, streams and units
-  hmb report [--si|--us] [-o out.html] FILE
-        one self-contained HTML page: caution, tables, diagrams, expectations, findings
-  hmb lsp
-        language server on stdin and stdout (for editors; see editors/README.md)
-  hmb version
+var commands = []command{
+	{"check", "[--format text|json|sarif] [--si|--us] [--quiet] PATH...",
+		[]string{"solve every calc file (*.hmb, directories recursively) and report problems"}},
+	{"fmt", "[-w] [--check] PATH...",
+		[]string{"print calc files in canonical layout (-w rewrites them, --check lists those that differ)"}},
+	{"props", "[--si|--us] [--json] [--atm P | --elevation Z] NAME=VALUE NAME=VALUE",
+		[]string{"water/steam state from two properties, e.g. hmb props p=150psig x=1",
+			"NAME is any two of p T h s x; gauge and vacuum readings against --atm or --elevation"}},
+	{"table", "[--format md|csv|html] [--si|--us] [-o OUT] FILE",
+		[]string{"stream and unit tables of one solved calc file"}},
+	{"plot", "[--kind Ts|hs|ph] [--full-dome] [--si|--us] [-o out.svg] FILE",
+		[]string{"property diagram (SVG) with the saturation dome, isobars, streams and units"}},
+	{"report", "[--si|--us] [-o out.html] FILE",
+		[]string{"one self-contained HTML page: caution, tables, diagrams, expectations, findings"}},
+	{"lsp", "",
+		[]string{"language server on stdin and stdout (for editors; see editors/README.md)"}},
+	{"version", "", nil},
+}
 
-Results support, and do not replace, code-compliant design and review by a licensed engineer.
-`
+const caution = "Results support, and do not replace, code-compliant design and review by a licensed engineer.\n"
+
+// synopsis is "hmb NAME ARGS" of a command.
+func (c command) synopsis() string {
+	if c.args == "" {
+		return "hmb " + c.name
+	}
+	return "hmb " + c.name + " " + c.args
+}
+
+// usage is what hmb prints with no command or with --help.
+var usage = func() string {
+	var b strings.Builder
+	b.WriteString("hmb: heat and material balances of steam and water systems\n\nusage:\n")
+	for _, c := range commands {
+		b.WriteString("  " + c.synopsis() + "\n")
+		for _, d := range c.doc {
+			b.WriteString("        " + d + "\n")
+		}
+	}
+	b.WriteString("\nhmb COMMAND --help describes one command.\n\n" + caution)
+	return b.String()
+}()
+
+// parseFlags parses a command's options. --help (or -h) prints the command's usage and its
+// options to stdout and ends the command with status 0; a bad option is a usage error (status 2)
+// that points at --help.
+func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) error {
+	err := fs.Parse(args)
+	if err == nil {
+		return nil
+	}
+	if !errors.Is(err, flag.ErrHelp) {
+		return usageErr("%v (hmb %s --help lists the options)", err, fs.Name())
+	}
+	writeCommandHelp(stdout, fs)
+	return &exitError{code: 0}
+}
+
+// writeCommandHelp writes the usage of the command fs parses for, and its options.
+func writeCommandHelp(w io.Writer, fs *flag.FlagSet) {
+	for _, c := range commands {
+		if c.name != fs.Name() {
+			continue
+		}
+		fmt.Fprintf(w, "usage: %s\n\n", c.synopsis())
+		for _, d := range c.doc {
+			fmt.Fprintln(w, d)
+		}
+	}
+	n := 0
+	fs.VisitAll(func(*flag.Flag) { n++ })
+	if n > 0 {
+		fmt.Fprintln(w, "\noptions:")
+		out := fs.Output()
+		fs.SetOutput(w)
+		fs.PrintDefaults()
+		fs.SetOutput(out)
+	}
+	fmt.Fprint(w, "\n"+caution)
+}
 
 // exitError carries an exit status up to main.
 type exitError struct {
@@ -79,6 +150,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stdout, "hmb", version)
 		return 0
 	case "help", "-h", "--help":
+		if len(args) == 2 && args[0] == "help" && args[1] != "help" && args[1] != "version" {
+			return run([]string{args[1], "--help"}, stdin, stdout, stderr) // hmb help check
+		}
 		fmt.Fprint(stdout, usage)
 		return 0
 	default:

@@ -16,8 +16,8 @@ func runPlot(args []string, stdout, stderr io.Writer) error {
 	full := fset.Bool("full-dome", false, "span the axes over the whole saturation dome, not just the streams")
 	out := fset.String("o", "", "write the SVG to this file instead of standard output")
 	sys := addSystemFlags(fset)
-	if err := fset.Parse(args); err != nil {
-		return usageErr("%v", err)
+	if err := parseFlags(fset, args, stdout); err != nil {
+		return err
 	}
 	kind, err := report.ParseKind(*kindArg)
 	if err != nil {

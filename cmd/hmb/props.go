@@ -32,8 +32,8 @@ func runProps(args []string, stdout io.Writer) error {
 	asJSON := fs.Bool("json", false, "print one JSON object in SI base units")
 	atmArg := fs.String("atm", "", "site atmosphere for gauge pressures, e.g. 12.9psia")
 	elevArg := fs.String("elevation", "", "site elevation for gauge pressures, e.g. 1500m")
-	if err := fs.Parse(args); err != nil {
-		return usageErr("%v", err)
+	if err := parseFlags(fs, args, stdout); err != nil {
+		return err
 	}
 	display, err := sysFlags.display()
 	if err != nil {

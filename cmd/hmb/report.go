@@ -18,8 +18,8 @@ func runReport(args []string, stdout, stderr io.Writer) error {
 	fset.SetOutput(io.Discard)
 	out := fset.String("o", "", "write the page to this file instead of standard output")
 	sys := addSystemFlags(fset)
-	if err := fset.Parse(args); err != nil {
-		return usageErr("%v", err)
+	if err := parseFlags(fset, args, stdout); err != nil {
+		return err
 	}
 	in, err := loadReportInput(fset, sys, stderr)
 	if err != nil {

@@ -15,8 +15,8 @@ func runTable(args []string, stdout, stderr io.Writer) error {
 	format := fset.String("format", "md", "output format: md, csv or html")
 	out := fset.String("o", "", "write to this file instead of standard output")
 	sys := addSystemFlags(fset)
-	if err := fset.Parse(args); err != nil {
-		return usageErr("%v", err)
+	if err := parseFlags(fset, args, stdout); err != nil {
+		return err
 	}
 	write := map[string]func(io.Writer, *report.Input) error{
 		"md": report.WriteMarkdown, "csv": report.WriteCSV, "html": report.WriteHTML,
