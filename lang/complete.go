@@ -1,191 +1,254 @@
 package lang
 
 import (
-	"slices"
-
+	"hmb/lang/ast"
 	"hmb/lang/check"
 	"hmb/lang/token"
 	"hmb/thermo/model"
 	"hmb/thermo/units"
 )
 
-// ContextKind says what may be typed at an offset.
-type ContextKind uint8
+// SiteKind is a set of things that may be written at a place of a file, for completion.
+type SiteKind uint16
 
 const (
-	AtTopLevel    ContextKind = iota // a statement: stream, expect, a unit kind, a setting
-	InStreamBlock                    // a stream property or fluid
-	InUnitBlock                      // a role or parameter of Context.Kind
-	AfterNumber                      // a unit spelling of Context.Dim
-	AfterRole                        // stream names
-	ExpectTarget                     // a stream or unit name
-	ExpectProp                       // a property of a stream or a result of a unit (Context.Target)
-	InComment                        // nothing to offer
-	AfterKey                         // a value: nothing fixed to offer (a number, a label, a name)
+	SiteKeyword  SiteKind = 1 << iota // a statement keyword or setting (Keywords)
+	SiteUnitKind                      // a unit kind
+	SiteRole                          // a port role of Site.Kind
+	SiteParam                         // a parameter of Site.Kind
+	SiteProp                          // a property a stream block may give
+	SiteSpelling                      // a unit spelling of dimension Site.Dim
+	SiteStream                        // the name of a declared stream
+	SiteUnit                          // the name of a declared unit
+	SiteResult                        // a result an expectation may check: Site.Results
+	SiteWord                          // one of Site.Words (display SI or US, fluid water)
 )
 
-// Context is where an offset stands, for completion.
-type Context struct {
-	Kind   ContextKind
-	Unit   *model.Kind // the unit kind of the block (InUnitBlock, AfterRole), nil if unknown
-	Dim    units.Dim   // AfterNumber: the dimension wanted
-	Target string      // ExpectProp: the stream or unit named
-	Words  []string    // what fits there: keywords, names or unit spellings
+// Site is what may be written at one place.
+type Site struct {
+	Kinds   SiteKind
+	Kind    *model.Kind        // the unit whose block, or whose result, is being written
+	Dim     units.Dim          // for SiteSpelling
+	Results []model.ResultSpec // for SiteResult
+	Words   []string           // for SiteWord
+	Replace model.Span         // the partly typed word completion replaces (empty at a fresh place)
 }
 
-// Keywords lists the words that may start a top-level statement.
-func Keywords() []string {
-	kw := append([]string{"stream", "expect"}, check.Settings...)
-	for k := range model.Kinds {
-		kw = append(kw, k)
-	}
-	slices.Sort(kw)
-	return kw
-}
-
-// ContextAt reports what may be typed at a byte offset of the checked file.
-func (r *Result) ContextAt(offset int) Context {
+// SiteAt says what may be written at byte offset off. It reads the tokens of the entry or
+// statement being written, back to the last separator, and whether a block is open around it.
+// Blocks do not nest, so the nearest brace before the cursor decides.
+func (r *Result) SiteAt(off int) Site {
 	toks := r.File.Tokens
-	src := r.File.Src.Src
-	text := func(t token.Token) string { return string(src[t.Pos:t.End]) }
-	// Walk to the offset, keeping the current block's header and the current line's tokens.
-	var header, line []token.Token
-	inBlock := false
-	for _, t := range toks {
-		if t.Kind == token.EOF || int(t.Pos) >= offset {
+	site := Site{Replace: model.Span{Start: off, End: off}}
+	// The token ending at or containing off is the word being typed, when it is a word.
+	end := len(toks)
+	for i, t := range toks {
+		if int(t.Pos) >= off {
+			end = i
 			break
 		}
-		if t.Kind == token.Comment && offset <= int(t.End) {
-			return Context{Kind: InComment}
+		if off <= int(t.End) && (t.Kind == token.Ident || t.Kind == token.Word) {
+			site.Replace = model.Span{Start: int(t.Pos), End: int(t.End)}
+			end = i
+			break
 		}
-		switch t.Kind {
-		case token.LBrace:
-			header, line, inBlock = line, nil, true
-		case token.RBrace:
-			header, line, inBlock = nil, nil, false
-		case token.Newline, token.Semi:
-			if n := len(line); n > 0 && line[n-1].Kind == token.Comma {
-				continue // a list goes on
-			}
-			line = nil
-		case token.Comment:
-		default:
-			if int(t.End) == offset && t.Kind == token.Ident {
-				continue // the word being typed
-			}
-			line = append(line, t)
+		if t.Kind == token.Comment && off <= int(t.End) {
+			return site // nothing to offer inside a comment
 		}
 	}
-	if inBlock && len(header) > 0 && text(header[0]) != "stream" {
-		// a new statement typed where a block was left open still counts as top level
-		if len(line) > 0 && (text(line[0]) == "stream" || text(line[0]) == "expect") {
-			inBlock = false
+	// The entry: tokens back to a separator, comments skipped; a list goes on after a comma.
+	var entry []token.Token
+	i := end - 1
+	for ; i >= 0; i-- {
+		t := toks[i]
+		if t.IsSeparator() && !(i > 0 && toks[i-1].Kind == token.Comma) || t.Kind == token.LBrace || t.Kind == token.RBrace {
+			break
 		}
+		if t.Kind != token.Comment && !t.IsSeparator() {
+			entry = append(entry, t)
+		}
+	}
+	for a, b := 0, len(entry)-1; a < b; a, b = a+1, b-1 {
+		entry[a], entry[b] = entry[b], entry[a]
+	}
+	e := siteEntry{r: r, toks: entry}
+	if lbrace := openBrace(toks, i); lbrace >= 0 {
+		return e.inBlock(site, lbrace)
+	}
+	return e.topLevel(site)
+}
+
+// openBrace returns the offset of the "{" of the block open at token i, or -1.
+func openBrace(toks []token.Token, i int) int {
+	for j := i; j >= 0; j-- {
+		switch toks[j].Kind {
+		case token.RBrace:
+			return -1
+		case token.LBrace:
+			return int(toks[j].Pos)
+		}
+	}
+	return -1
+}
+
+// siteEntry is the entry being written: its tokens before the cursor.
+type siteEntry struct {
+	r    *Result
+	toks []token.Token
+}
+
+func (e siteEntry) text(i int) string { return e.toks[i].Text(e.r.File.Src.Src) }
+
+func (e siteEntry) afterNumber() bool {
+	return len(e.toks) > 0 && e.toks[len(e.toks)-1].Kind == token.Number
+}
+
+func (e siteEntry) inBlock(site Site, lbrace int) Site {
+	for _, s := range e.r.File.Stmts {
+		switch s := s.(type) {
+		case *ast.StreamDecl:
+			if s.Block == nil || s.Block.Lbrace != lbrace {
+				continue
+			}
+			switch {
+			case len(e.toks) == 0:
+				site.Kinds = SiteProp | SiteKeyword
+			case e.text(0) == "fluid" && len(e.toks) == 1:
+				site.Kinds, site.Words = SiteWord, []string{"water", "steam"}
+			case e.afterNumber():
+				if r := model.StreamResult(e.text(0)); r != nil {
+					site.Kinds, site.Dim = SiteSpelling, r.Dim
+				}
+			}
+			return site
+		case *ast.UnitDecl:
+			if s.Block == nil || s.Block.Lbrace != lbrace {
+				continue
+			}
+			k := model.Kinds[s.Kind.Name]
+			if k == nil {
+				return site
+			}
+			site.Kind = k
+			if len(e.toks) == 0 {
+				site.Kinds = SiteRole | SiteParam
+				return site
+			}
+			key := e.text(0)
+			if r, ok := check.RoleAliases[key]; ok {
+				key = r
+			}
+			switch p := k.Param(key); {
+			case k.Port(key) != nil && !e.afterNumber():
+				site.Kinds = SiteStream
+			case p != nil && e.afterNumber():
+				site.Kinds, site.Dim = SiteSpelling, p.Dim
+			}
+			return site
+		}
+	}
+	return site
+}
+
+func (e siteEntry) topLevel(site Site) Site {
+	if len(e.toks) == 0 {
+		site.Kinds = SiteKeyword | SiteUnitKind
+		return site
+	}
+	switch first := e.text(0); {
+	case first == "expect":
+		return e.expect(site)
+	case first == "display" && len(e.toks) == 1:
+		site.Kinds, site.Words = SiteWord, []string{"SI", "US"}
+	case first == "atmosphere" && e.afterNumber():
+		site.Kinds, site.Dim = SiteSpelling, units.Pressure
+	case first == "elevation" && e.afterNumber():
+		site.Kinds, site.Dim = SiteSpelling, units.Length
+	case first == "tolerance" && e.afterNumber():
+		site.Kinds, site.Dim = SiteSpelling, units.Dimensionless
+	}
+	return site
+}
+
+// expect: the subject, then one of its results, then after the number a spelling of the
+// result's dimension.
+func (e siteEntry) expect(site Site) Site {
+	var unit *model.Kind
+	isUnit := false
+	if len(e.toks) >= 2 && e.r.Info != nil {
+		if o := e.r.Info.Objects[e.text(1)]; o != nil && o.IsUnit {
+			unit, isUnit = o.Kind, true
+		}
+	}
+	results := model.StreamResults
+	if isUnit {
+		if unit == nil {
+			return site // a unit of unknown kind
+		}
+		results = unit.Results
+		site.Kind = unit
 	}
 	switch {
-	case !inBlock:
-		return r.topContext(line, text)
-	case len(header) > 0 && text(header[0]) == "stream":
-		if len(line) == 0 {
-			return Context{Kind: InStreamBlock, Words: check.StreamKeys[:]}
-		}
-		if len(line) >= 2 && line[len(line)-1].Kind == token.Number {
-			if p, ok := propDim(text(line[0])); ok {
-				return spellings(p)
+	case len(e.toks) == 1:
+		site.Kinds = SiteStream | SiteUnit
+	case len(e.toks) == 2:
+		site.Kinds, site.Results = SiteResult, results
+	case e.afterNumber():
+		for _, r := range results {
+			if r.Name == e.text(2) {
+				site.Kinds, site.Dim = SiteSpelling, r.Dim
 			}
 		}
-		return Context{Kind: AfterKey}
-	default:
-		var k *model.Kind
-		if len(header) > 0 {
-			k = model.Kinds[text(header[0])]
-		}
-		if len(line) == 0 {
-			c := Context{Kind: InUnitBlock, Unit: k}
-			if k != nil {
-				c.Words = check.Keys(k)
-			}
-			return c
-		}
-		if k == nil {
-			return Context{Kind: AfterKey}
-		}
-		role := text(line[0])
-		if role == "vapour" {
-			role = "vapor"
-		}
-		if k.Port(role) != nil {
-			return Context{Kind: AfterRole, Unit: k, Words: r.names(false)}
-		}
-		if p := k.Param(role); p != nil && line[len(line)-1].Kind == token.Number {
-			return spellings(p.Dim)
-		}
-		return Context{Kind: AfterKey, Unit: k}
 	}
+	return site
 }
 
-func (r *Result) topContext(line []token.Token, text func(token.Token) string) Context {
-	if len(line) == 0 {
-		return Context{Kind: AtTopLevel, Words: Keywords()}
-	}
-	last := line[len(line)-1]
-	switch text(line[0]) {
-	case "expect":
-		switch len(line) {
-		case 1:
-			return Context{Kind: ExpectTarget, Words: append(r.names(false), r.names(true)...)}
-		case 2:
-			target := text(line[1])
-			c := Context{Kind: ExpectProp, Target: target, Words: check.StreamProps}
-			if o := r.Info.Objects[target]; o != nil && o.IsUnit && o.Kind != nil {
-				c.Words = check.Results(o.Kind)
-			}
-			return c
-		}
-		if last.Kind == token.Number {
-			if p, ok := propDim(text(line[2])); ok {
-				return spellings(p)
-			}
-			return spellings(units.Power)
-		}
-	case "atmosphere":
-		if last.Kind == token.Number {
-			return spellings(units.Pressure)
-		}
-	case "elevation":
-		if last.Kind == token.Number {
-			return spellings(units.Length)
-		}
-	case "tolerance":
-		if last.Kind == token.Number {
-			return spellings(units.Dimensionless)
-		}
-	case "display":
-		return Context{Kind: AfterKey, Words: []string{"SI", "US"}}
-	}
-	return Context{Kind: AfterKey}
+// Keyword is one keyword of the notation with one line of help.
+type Keyword struct {
+	Name, Doc string
 }
 
-func propDim(name string) (units.Dim, bool) {
-	for p := model.Prop(0); p < model.NumProps; p++ {
-		if p.String() == name {
-			return p.Dim(), true
-		}
-	}
-	return 0, false
+// keywordDocs is the help on each keyword; every setting the checker knows has one
+// (TestKeywordsCoverSettings).
+var keywordDocs = map[string]string{
+	"stream":     "declares a stream (a state point): stream NAME \"label\" { givens }, or stream A, B, C for bare streams",
+	"expect":     "checks a solved value: expect NAME RESULT OP VALUE [within TOLERANCE]",
+	"title":      "setting: the title of the calc",
+	"display":    "setting: the unit system results are shown in, SI or US",
+	"atmosphere": "setting: the site atmosphere gauge pressures are measured against",
+	"elevation":  "setting: the site elevation, giving the atmosphere from the standard atmosphere",
+	"tolerance":  "setting: the relative closure tolerance of the balances",
+	"within":     "the tolerance of an expectation: expect S1 T = 300 C within 2 C",
+	"fluid":      "the stream's fluid (water, liquid or steam: IAPWS-IF97)",
 }
 
-func spellings(d units.Dim) Context {
-	return Context{Kind: AfterNumber, Dim: d, Words: units.Spellings(d)}
-}
-
-// names lists the declared streams (or units), in declaration order.
-func (r *Result) names(unitsWanted bool) []string {
-	var out []string
-	for _, o := range r.Info.Order {
-		if o.IsUnit == unitsWanted {
-			out = append(out, o.Name)
-		}
+// Keywords lists the notation's keywords with their help, in completion order: the statements,
+// the settings, then the words inside statements.
+func Keywords() []Keyword {
+	names := append(append([]string{"stream", "expect"}, check.Settings...), "within", "fluid")
+	out := make([]Keyword, len(names))
+	for i, n := range names {
+		out[i] = Keyword{Name: n, Doc: keywordDocs[n]}
 	}
 	return out
+}
+
+// KeywordDoc is the help on a keyword, or "".
+func KeywordDoc(name string) string {
+	for _, k := range Keywords() {
+		if k.Name == name {
+			return k.Doc
+		}
+	}
+	return ""
+}
+
+// ValidName reports whether name may name a stream or a unit: one identifier that is neither a
+// keyword nor a unit kind.
+func ValidName(name string) bool {
+	toks, errs := token.Scan([]byte(name))
+	if len(errs) > 0 || len(toks) != 2 || toks[0].Kind != token.Ident || int(toks[0].End) != len(name) {
+		return false
+	}
+	return KeywordDoc(name) == "" && model.Kinds[name] == nil
 }

@@ -61,7 +61,7 @@ func FuzzCheck(f *testing.F) {
 	f.Fuzz(func(t *testing.T, src []byte) {
 		r := Check("fuzz.hmb", src)
 		r.Tokens()
-		r.ContextAt(len(src) / 2)
+		r.SiteAt(len(src) / 2)
 		once, err := format.Source("fuzz.hmb", src)
 		if err != nil {
 			return

@@ -85,7 +85,7 @@ func checkPrefix(t *testing.T, name string, src []byte) {
 	for _, tk := range r.Tokens() {
 		in("token", model.Span{Start: tk.Pos, End: tk.End})
 	}
-	r.ContextAt(len(src))
+	r.SiteAt(len(src))
 	if openBlock(src) {
 		found := false
 		for _, d := range r.Diags {

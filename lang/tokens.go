@@ -6,131 +6,176 @@ import (
 	"hmb/lang/ast"
 )
 
-// TokenKind classifies a token for highlighting (the language server's semantic tokens).
+// TokenKind is the role of a token, as highlighting and hover see it.
 type TokenKind uint8
 
 const (
-	Keyword    TokenKind = iota // stream, expect, within, settings, unit kinds, roles, fluid names
-	Property                    // a stream property, unit parameter or result: p, T, efficiency, duty
-	StreamName                  // a stream's name, declared or mentioned
-	UnitName                    // a unit's name, declared or mentioned
-	Number
-	UnitSpelling // psig, lbm/h, °F, %
-	String
-	Comment
-	Operator // = < <= > >= ±
+	KeywordToken  TokenKind = iota // stream, expect, within, settings and their words, fluid
+	StreamToken                    // a stream's name, declared or mentioned
+	UnitToken                      // a unit's name, declared or mentioned
+	KindToken                      // a unit kind: mixer, turbine...
+	RoleToken                      // a port role: in, out, hot_in...
+	ParamToken                     // a unit parameter: duty, efficiency...
+	PropToken                      // a stream property, or the result an expectation checks
+	NumberToken                    // 150, -4.5
+	SpellingToken                  // psig, lbm/h, °F, %
+	StringToken                    // a label or a title
+	CommentToken                   // # to the end of the line
+	OperatorToken                  // = < <= > >= ±
+	NumTokenKinds
 )
 
-var tokenKindNames = [...]string{"keyword", "property", "stream", "unit", "number", "unit spelling", "string", "comment", "operator"}
+var tokenKindNames = [NumTokenKinds]string{"keyword", "stream", "unit", "kind", "role", "parameter",
+	"property", "number", "unit spelling", "string", "comment", "operator"}
 
-func (k TokenKind) String() string { return tokenKindNames[k] }
+func (k TokenKind) String() string {
+	if k < NumTokenKinds {
+		return tokenKindNames[k]
+	}
+	return "?"
+}
 
-// Token is a classified byte range of the source.
+// Token is a classified byte range [Pos, End) of the source.
 type Token struct {
 	Pos, End int
 	Kind     TokenKind
+	Decl     bool // a stream's or unit's name where it is declared
 }
 
 // Tokens classifies the tokens of a checked file, in source order. Names that do not resolve are
-// classed by where they stand (a port list names streams). Syntax the parser could not place
-// (inside *ast.Bad) is left out.
+// classed by where they stand (a port list and an expectation name streams). Syntax the parser
+// could not place (inside *ast.Bad) is left out.
 func (r *Result) Tokens() []Token {
-	var out []Token
-	add := func(pos, end int, k TokenKind) { out = append(out, Token{pos, end, k}) }
-	id := func(x *ast.Ident, k TokenKind) {
-		if x != nil {
-			add(x.Pos(), x.End(), k)
-		}
-	}
-	str := func(s *ast.String) {
-		if s != nil {
-			add(s.Pos(), s.End(), String)
-		}
-	}
-	qty := func(q *ast.Quantity) {
-		if q != nil {
-			add(q.NumPos, q.NumPos+len(q.Raw), Number)
-			id(q.Unit, UnitSpelling)
-		}
-	}
-	tol := func(t *ast.Tol) {
-		if t != nil {
-			k := Operator
-			if t.Op == "within" {
-				k = Keyword
-			}
-			add(t.OpPos, t.OpPos+len(t.Op), k)
-			qty(t.Amount)
-		}
-	}
-	name := func(x *ast.Ident, isUnit bool) {
-		if o := r.Info.Objects[x.Name]; o != nil {
-			isUnit = o.IsUnit
-		}
-		if isUnit {
-			id(x, UnitName)
-		} else {
-			id(x, StreamName)
-		}
-	}
-	block := func(b *ast.Block, inUnit bool) {
-		if b == nil {
-			return
-		}
-		for _, e := range b.Entries {
-			switch e := e.(type) {
-			case *ast.Given:
-				id(e.Key, Property)
-				qty(e.Value)
-				tol(e.Tol)
-			case *ast.Names:
-				if !inUnit { // fluid water
-					id(e.Key, Property)
-					for _, n := range e.Names {
-						id(n, Keyword)
-					}
-					continue
-				}
-				id(e.Key, Keyword)
-				for _, n := range e.Names {
-					name(n, false)
-				}
-			}
-		}
-	}
+	t := tokenizer{r: r, out: make([]Token, 0, len(r.File.Tokens))}
 	for _, s := range r.File.Stmts {
-		switch s := s.(type) {
-		case *ast.Setting:
-			id(s.Key, Keyword)
-			str(s.Str)
-			qty(s.Qty)
-			id(s.Word, Keyword)
-		case *ast.StreamDecl:
-			add(s.Keyword, s.Keyword+len("stream"), Keyword)
-			id(s.Name, StreamName)
-			for _, n := range s.More {
-				id(n, StreamName)
-			}
-			str(s.Label)
-			block(s.Block, false)
-		case *ast.UnitDecl:
-			id(s.Kind, Keyword)
-			id(s.Name, UnitName)
-			str(s.Label)
-			block(s.Block, true)
-		case *ast.Expect:
-			add(s.Keyword, s.Keyword+len("expect"), Keyword)
-			name(s.Target, false)
-			id(s.Prop, Property)
-			add(s.OpPos, s.OpPos+len(s.Op), Operator)
-			qty(s.Value)
-			tol(s.Tol)
-			str(s.Label)
-		}
+		t.stmt(s)
 	}
 	for _, c := range r.File.Comments {
-		add(c.Pos(), c.End(), Comment)
+		t.node(c, CommentToken, false)
 	}
-	slices.SortFunc(out, func(a, b Token) int { return a.Pos - b.Pos })
-	return out
+	slices.SortStableFunc(t.out, func(a, b Token) int { return a.Pos - b.Pos })
+	return t.out
+}
+
+type tokenizer struct {
+	r   *Result
+	out []Token
+}
+
+func (t *tokenizer) add(pos, end int, k TokenKind, decl bool) {
+	if end > pos {
+		t.out = append(t.out, Token{Pos: pos, End: end, Kind: k, Decl: decl})
+	}
+}
+
+func (t *tokenizer) node(n ast.Node, k TokenKind, decl bool) {
+	if n != nil {
+		t.add(n.Pos(), n.End(), k, decl)
+	}
+}
+
+func (t *tokenizer) ident(id *ast.Ident, k TokenKind, decl bool) {
+	if id != nil {
+		t.add(id.Pos(), id.End(), k, decl)
+	}
+}
+
+func (t *tokenizer) str(s *ast.String) {
+	if s != nil {
+		t.add(s.Pos(), s.End(), StringToken, false)
+	}
+}
+
+func (t *tokenizer) qty(q *ast.Quantity) {
+	if q != nil {
+		t.add(q.NumPos, q.NumPos+len(q.Raw), NumberToken, false)
+		t.ident(q.Unit, SpellingToken, false)
+	}
+}
+
+func (t *tokenizer) tol(tl *ast.Tol) {
+	if tl == nil {
+		return
+	}
+	k := OperatorToken
+	if tl.Op == "within" {
+		k = KeywordToken
+	}
+	t.add(tl.OpPos, tl.OpPos+len(tl.Op), k, false)
+	t.qty(tl.Amount)
+}
+
+// name classes a mention of a stream or unit by what it names; an unresolved one is a stream.
+func (t *tokenizer) name(id *ast.Ident) {
+	if id == nil {
+		return
+	}
+	k := StreamToken
+	if t.r.Info != nil {
+		if o := t.r.Info.Objects[id.Name]; o != nil && o.IsUnit {
+			k = UnitToken
+		}
+	}
+	t.ident(id, k, false)
+}
+
+func (t *tokenizer) block(b *ast.Block, unit bool) {
+	if b == nil {
+		return
+	}
+	for _, e := range b.Entries {
+		switch e := e.(type) {
+		case *ast.Given:
+			if unit {
+				t.ident(e.Key, ParamToken, false)
+			} else {
+				t.ident(e.Key, PropToken, false)
+			}
+			t.qty(e.Value)
+			t.tol(e.Tol)
+		case *ast.Names:
+			if !unit { // fluid water
+				t.ident(e.Key, KeywordToken, false)
+				for _, n := range e.Names {
+					t.ident(n, KeywordToken, false)
+				}
+				continue
+			}
+			t.ident(e.Key, RoleToken, false)
+			for _, n := range e.Names {
+				t.name(n)
+			}
+		}
+	}
+}
+
+func (t *tokenizer) stmt(s ast.Stmt) {
+	switch s := s.(type) {
+	case *ast.Setting:
+		t.ident(s.Key, KeywordToken, false)
+		t.str(s.Str)
+		t.qty(s.Qty)
+		t.ident(s.Word, KeywordToken, false)
+	case *ast.StreamDecl:
+		t.add(s.Keyword, s.Keyword+len("stream"), KeywordToken, false)
+		t.ident(s.Name, StreamToken, true)
+		for _, n := range s.More {
+			t.ident(n, StreamToken, true)
+		}
+		t.str(s.Label)
+		t.block(s.Block, false)
+	case *ast.UnitDecl:
+		t.ident(s.Kind, KindToken, false)
+		t.ident(s.Name, UnitToken, true)
+		t.str(s.Label)
+		t.block(s.Block, true)
+	case *ast.Expect:
+		t.add(s.Keyword, s.Keyword+len("expect"), KeywordToken, false)
+		t.name(s.Target)
+		t.ident(s.Prop, PropToken, false)
+		t.add(s.OpPos, s.OpPos+len(s.Op), OperatorToken, false)
+		t.qty(s.Value)
+		t.tol(s.Tol)
+		t.str(s.Label)
+	}
 }

@@ -34,13 +34,13 @@ func (s *Server) analyze(snap *cache.Snapshot) {
 		if snap.Superseded() {
 			return
 		}
-		syn := snap.Syntax()
+		res := snap.Check()
 		if snap.Superseded() {
 			return
 		}
-		if syn.Model == nil || hasErrors(syn.Diagnostics) {
-			s.publish(snap, snap.Diagnostics(nil), syn.Model == nil)
-			if syn.Model == nil {
+		if res.Model == nil || hasErrors(res.Diags) {
+			s.publish(snap, snap.Diagnostics(nil), res.Model == nil)
+			if res.Model == nil {
 				return
 			}
 		}

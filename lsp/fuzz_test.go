@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"context"
 	"fmt"
+	"hmb/lsp/cache"
 	"strings"
 	"testing"
 	"time"
@@ -13,7 +14,6 @@ import (
 	"go.lsp.dev/protocol"
 
 	"hmb/lang/format"
-	"hmb/lsp/analysis"
 	"hmb/lsp/feature"
 )
 
@@ -134,7 +134,7 @@ func FuzzServer(f *testing.F) {
 		if len(data) > 400 {
 			return
 		}
-		c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+		c := startServer(t, options{solve: cache.Solve})
 		uris := []protocol.DocumentURI{"file:///a.hmb", "file:///b.hmb"}
 		texts := map[protocol.DocumentURI]string{}
 		versions := map[protocol.DocumentURI]int32{}
@@ -225,7 +225,7 @@ func FuzzStream(f *testing.F) {
 		var out, log syncBuffer
 		done := make(chan struct{})
 		go func() {
-			_ = run(context.Background(), bytes.NewReader(data), &out, &log, options{analyzer: analysis.New(analysis.Solver)})
+			_ = run(context.Background(), bytes.NewReader(data), &out, &log, options{solve: cache.Solve})
 			close(done)
 		}()
 		select {

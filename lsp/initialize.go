@@ -39,7 +39,7 @@ func (s *Server) initialize(ctx context.Context, _ *cache.Snapshot, raw json.Raw
 			DocumentFormattingProvider: true,
 			RenameProvider:             &protocol.RenameOptions{PrepareProvider: true},
 			SemanticTokensProvider: &ext.SemanticTokensOptions{
-				Legend: protocol.SemanticTokensLegend{TokenTypes: feature.TokenTypes, TokenModifiers: feature.TokenModifiers},
+				Legend: protocol.SemanticTokensLegend{TokenTypes: feature.TokenTypes[:], TokenModifiers: feature.TokenModifiers},
 				Full:   true,
 			},
 			InlayHintProvider:      true,

@@ -12,7 +12,6 @@ import (
 	"go.lsp.dev/jsonrpc2"
 	"go.lsp.dev/protocol"
 
-	"hmb/lsp/analysis"
 	"hmb/lsp/cache"
 )
 
@@ -96,24 +95,25 @@ func TestUTF16Columns(t *testing.T) {
 	}
 }
 
-// panicky is an analyzer with a bug: completion's Site panics.
-type panicky struct{ *analysis.Analyzer }
-
-func (panicky) Site(*cache.Syntax, int) cache.Site { panic("bug in Site") }
-
+// TestPanicIsReported: a request whose handler has a bug (here a method added for the test that
+// panics) is answered with an internal error, logged, and the server goes on.
 func TestPanicIsReported(t *testing.T) {
-	c := startServer(t, options{analyzer: panicky{analysis.New(solveDouble)}})
+	methods["test/panic"] = docMethod(func(*Server, context.Context, *cache.Snapshot, *protocol.TextDocumentPositionParams) (any, error) {
+		panic("bug in the handler")
+	})
+	defer delete(methods, "test/panic")
+	c := startServer(t, newTestOptions(0))
 	c.open(uri, 1, plant)
-	err := c.call(protocol.MethodTextDocumentCompletion, docPos(uri, protocol.Position{}), nil)
-	if errCode(err) != jsonrpc2.InternalError || !strings.Contains(err.Error(), "bug in Site") {
-		t.Errorf("completion with a panicking analyzer: %v", err)
+	err := c.call("test/panic", docPos(uri, protocol.Position{}), nil)
+	if errCode(err) != jsonrpc2.InternalError || !strings.Contains(err.Error(), "bug in the handler") {
+		t.Errorf("a panicking handler: %v", err)
 	}
 	var h *protocol.Hover
 	c.mustCall(protocol.MethodTextDocumentHover, docPos(uri, at(t, plant, "T1", 0)), &h)
 	if h == nil {
 		t.Error("no hover after the panic")
 	}
-	if !strings.Contains(c.log.String(), "panic in textDocument/completion: bug in Site") {
+	if !strings.Contains(c.log.String(), "panic in test/panic: bug in the handler") {
 		t.Errorf("log %q", c.log.String())
 	}
 }
@@ -135,7 +135,7 @@ func TestLargeDocument(t *testing.T) {
 		t.Skip("5 MB document")
 	}
 	src := bigDocument(5 << 20)
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	big := protocol.DocumentURI("file:///big.hmb")
 	c.open(big, 1, src)
 	if ds := c.waitDiags(big, 1); len(ds) != 0 {
@@ -160,7 +160,7 @@ func TestLargeDocument(t *testing.T) {
 // BenchmarkHoverLarge is the hover latency on a solved 1,000-stream document.
 func BenchmarkHoverLarge(b *testing.B) {
 	src := bigDocument(1000 * 150 / 2) // about 500 stream pairs
-	c := startServer(b, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(b, options{solve: cache.Solve})
 	c.open(uri, 1, src)
 	c.waitDiags(uri, 1)
 	pos := protocol.Position{Line: uint32(strings.Count(src, "\n") - 2), Character: 7}
@@ -177,7 +177,7 @@ var benchDebounce = defaultDebounce
 // publication of its diagnostics (the server's own debounce included).
 func BenchmarkChangeToDiagnostics(b *testing.B) {
 	src := bigDocument(1000 * 150 / 2)
-	c := startServer(b, options{analyzer: analysis.New(analysis.Solver), debounce: benchDebounce})
+	c := startServer(b, options{solve: cache.Solve, debounce: benchDebounce})
 	c.open(uri, 1, src)
 	c.waitDiags(uri, 1)
 	b.ResetTimer()
@@ -191,7 +191,7 @@ func BenchmarkChangeToDiagnostics(b *testing.B) {
 // BenchmarkOpenMemory reports the heap a solved 1,000-stream document keeps while open.
 func BenchmarkOpenMemory(b *testing.B) {
 	src := bigDocument(1000 * 150 / 2)
-	c := startServer(b, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(b, options{solve: cache.Solve})
 	var before, after runtime.MemStats
 	for i := range b.N {
 		u := protocol.DocumentURI(fmt.Sprintf("file:///m%d.hmb", i))
@@ -219,7 +219,7 @@ func TestPipelinedExit(t *testing.T) {
 		frame(`{"jsonrpc":"2.0","id":2,"method":"textDocument/hover","params":`+string(hover)+`}`) +
 		frame(`{"jsonrpc":"2.0","id":3,"method":"shutdown"}`) + frame(`{"jsonrpc":"2.0","method":"exit"}`))
 	var out, log syncBuffer
-	if err := run(context.Background(), in, &out, &log, options{analyzer: analysis.New(analysis.Solver)}); err != nil {
+	if err := run(context.Background(), in, &out, &log, options{solve: cache.Solve}); err != nil {
 		t.Fatal(err)
 	}
 	for _, m := range frames(t, out.String()) {

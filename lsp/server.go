@@ -15,7 +15,6 @@ import (
 	"go.lsp.dev/jsonrpc2"
 	"go.lsp.dev/protocol"
 
-	"hmb/lsp/analysis"
 	"hmb/lsp/cache"
 )
 
@@ -25,7 +24,8 @@ const defaultDebounce = 30 * time.Millisecond
 
 // options configure a server; tests set them.
 type options struct {
-	analyzer cache.Analyzer
+	// solve is the solver; the one hmb check runs unless a test stands in another.
+	solve    cache.SolveFunc
 	debounce time.Duration
 	// onPublish, when set, learns of each publication of diagnostics as it is queued, and
 	// whether it is the complete set for its version (the check's errors go out before the solve).
@@ -36,7 +36,7 @@ type options struct {
 // out; log receives the server's own messages (which also go to the client as
 // window/logMessage). It returns nil after an orderly shutdown and exit, or when in ends.
 func Run(ctx context.Context, in io.Reader, out io.Writer, log io.Writer) error {
-	return run(ctx, in, out, log, options{analyzer: defaultAnalyzer(), debounce: defaultDebounce})
+	return run(ctx, in, out, log, options{solve: cache.Solve, debounce: defaultDebounce})
 }
 
 func run(ctx context.Context, in io.Reader, out io.Writer, log io.Writer, opts options) error {
@@ -120,7 +120,7 @@ func newServer(conn jsonrpc2.Conn, log io.Writer, opts options) *Server {
 		conn:     conn,
 		log:      log,
 		opts:     opts,
-		session:  cache.NewSession(opts.analyzer, log),
+		session:  cache.NewSession(opts.solve, log),
 		notifier: newNotifier(conn, log),
 		inflight: make(map[jsonrpc2.ID]context.CancelFunc),
 		busy:     make(map[protocol.DocumentURI]*cache.Snapshot),
@@ -202,6 +202,3 @@ func (s *Server) logf(typ protocol.MessageType, format string, a ...any) {
 	fmt.Fprintln(s.log, "hmb lsp: "+msg)
 	s.notifier.send(protocol.MethodWindowLogMessage, &protocol.LogMessageParams{Type: typ, Message: msg})
 }
-
-// defaultAnalyzer is the notation and the solver the command line uses.
-func defaultAnalyzer() cache.Analyzer { return analysis.New(analysis.Solver) }

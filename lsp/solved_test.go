@@ -18,7 +18,6 @@ import (
 	"go.lsp.dev/protocol"
 
 	"hmb/lang"
-	"hmb/lsp/analysis"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
 	"hmb/thermo/solve"
@@ -104,7 +103,7 @@ func hoverAt(t *testing.T, c *client, u protocol.DocumentURI, src, marker string
 }
 
 func TestSolvedStreamHover(t *testing.T) {
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, turbineFile)
 	if ds := c.waitDiags(solvedURI, 1); len(ds) != 0 {
 		t.Fatalf("diagnostics %+v", ds)
@@ -159,7 +158,7 @@ func TestSolvedStreamHover(t *testing.T) {
 }
 
 func TestSolvedUnitHoverAndHints(t *testing.T) {
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, turbineFile)
 	text := hoverAt(t, c, solvedURI, turbineFile, "T1")
 	if !strings.HasPrefix(text, "**turbine** `T1`\n\nadiabatic expansion producing shaft power\n\n"+hoverUnitTable) {
@@ -175,7 +174,7 @@ func TestSolvedUnitHoverAndHints(t *testing.T) {
 		if v, ok := strings.CutPrefix(line, "power "); ok {
 			power = v
 		}
-		if v, ok := strings.CutPrefix(line, "entropy generated "); ok {
+		if v, ok := strings.CutPrefix(line, "sgen "); ok {
 			sgen = v
 		}
 	}
@@ -222,7 +221,7 @@ func TestSolvedUnitHoverAndHints(t *testing.T) {
 // TestSolvedUSDisplay shows the same state in the file's US unit system.
 func TestSolvedUSDisplay(t *testing.T) {
 	src := strings.Replace(turbineFile, "display SI", "display US", 1)
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, src)
 	rows := tableRows(hoverAt(t, c, solvedURI, src, "S2 \"exhaust"))
 	near(t, "S2 T (US)", rows["T"][0], refT2F, solvedTol)
@@ -250,7 +249,7 @@ func TestDiagnosticsMatchCheck(t *testing.T) {
 	if len(files) < 5 {
 		t.Fatalf("found only %d test files", len(files))
 	}
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	texts := make([][]byte, len(files))
 	for i, f := range files {
 		src, err := os.ReadFile(f)
@@ -305,7 +304,7 @@ func TestListHints(t *testing.T) {
 	// h 2855.8962; IAPWS97(P=0.4, h=f.h).T - 273.15 = 197.57404,
 	// IAPWS97(P=0.1, h=f.h).T - 273.15 = 190.08818 (both superheated: no quality shown).
 	src := "stream F { flow 2 kg/s; p 5 bar; T 200 C }\nstream A, B\nvalve V1 { in F; out A; dp 1 bar }\nvalve V2 { in A; out B; dp 3 bar }\n"
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, src)
 	var hints []struct {
 		Position protocol.Position
@@ -330,7 +329,7 @@ func TestListHints(t *testing.T) {
 func TestSpecifyQuickFix(t *testing.T) {
 	src := "stream F { flow 2 kg/s; p 5 bar; T 200 C }\nstream A\nstream B { }\nvalve V1 {\n  in F\n  out A\n}\n" +
 		"valve V2 { in A; out B; }\nstream C { }\nheater H { in B; out C; dp 0 bar }\n"
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, src)
 	c.waitDiags(solvedURI, 1)
 	actions := func(line uint32) []string {

@@ -13,7 +13,6 @@ import (
 	"go.lsp.dev/jsonrpc2"
 	"go.lsp.dev/protocol"
 
-	"hmb/lsp/analysis"
 	"hmb/lsp/cache"
 )
 
@@ -38,7 +37,7 @@ func streamTableCommand(uri protocol.DocumentURI) map[string]any {
 }
 
 func TestTitleHoverAndCommand(t *testing.T) {
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, turbineFile)
 	c.waitDiags(solvedURI, 1)
 
@@ -92,7 +91,7 @@ func TestTitleHoverAndCommand(t *testing.T) {
 // TestTablesUSDisplay shows the tables in the file's US units.
 func TestTablesUSDisplay(t *testing.T) {
 	src := strings.Replace(turbineFile, "display SI", "display US", 1)
-	c := startServer(t, options{analyzer: analysis.New(analysis.Solver)})
+	c := startServer(t, options{solve: cache.Solve})
 	c.open(solvedURI, 1, src)
 	var cmd string
 	c.mustCall(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(solvedURI), &cmd)
@@ -139,43 +138,18 @@ func TestExecuteCommandErrors(t *testing.T) {
 			t.Errorf("%s: %v, want InvalidParams", tt.name, err)
 		}
 	}
-	// A text document identifier names the document as well as a bare URI. The double solves
-	// nothing, so every computed value is n/a, never a number.
+	// A text document identifier names the document as well as a bare URI (S2 as in
+	// TestHoverGolden: T2 118.894 C, h2 2714.37 kJ/kg, s2 7.46194, python3-iapws).
 	var text string
 	c.mustCall(protocol.MethodWorkspaceExecuteCommand, map[string]any{"command": "hmb.streamTable",
 		"arguments": []any{map[string]any{"uri": uri}}}, &text)
-	if got := strings.Join(mdRows(text)["S2"], ","); got != "S2,exhaust 🔥,n/a,n/a,n/a,n/a,n/a,n/a,unsolved" {
-		t.Errorf("S2 row unsolved: %s", got)
+	if got := strings.Join(mdRows(text)["S2"], ","); got != "S2,exhaust 🔥,10.000,100.00,118.89,2714.4,7.4619,,superheated vapour" {
+		t.Errorf("S2 row: %s", got)
 	}
 	// A half-typed file tabulates what the checker could lower.
 	c.change(uri, 2, map[string]any{"text": "title \"half\"\nstream S1 {\n"})
 	c.mustCall(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(uri), &text)
 	if got := strings.Join(mdRows(text)["S1"], ","); !strings.HasPrefix(text, "# half\n") || got != "S1,,n/a,n/a,n/a,n/a,n/a,n/a,unsolved" {
 		t.Errorf("half-typed file: S1 row %s in\n%s", got, text)
-	}
-}
-
-// noModel is a language whose files never lower to a model.
-type noModel struct{ *analysis.Analyzer }
-
-func (a noModel) Check(name string, src []byte) *cache.Syntax {
-	syn := a.Analyzer.Check(name, src)
-	syn.Model = nil
-	return syn
-}
-
-// TestTablesWithoutModel: a file that cannot be lowered has no tables. The command fails; the
-// title's hover is the keyword's help.
-func TestTablesWithoutModel(t *testing.T) {
-	c := startServer(t, options{analyzer: noModel{analysis.New(solveDouble)}})
-	c.open(uri, 1, plant)
-	err := c.call(protocol.MethodWorkspaceExecuteCommand, streamTableCommand(uri), nil)
-	if errCode(err) != requestFailed || !strings.Contains(err.Error(), "nothing to tabulate") {
-		t.Errorf("tables of a file without a model: %v", err)
-	}
-	var h *protocol.Hover
-	c.mustCall(protocol.MethodTextDocumentHover, docPos(uri, protocol.Position{Line: 0, Character: 1}), &h)
-	if h == nil || h.Contents.Value != "`title`: setting: the title of the calc" || *h.Range != (protocol.Range{End: protocol.Position{Character: 5}}) {
-		t.Errorf("hover on the title: %+v", h)
 	}
 }

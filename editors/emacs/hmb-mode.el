@@ -50,11 +50,11 @@
   "Top-level settings.")
 
 (defconst hmb--roles
-  '("in" "out" "hot_in" "hot_out" "cold_in" "cold_out" "vapor" "liquid" "steam" "water")
+  '("in" "out" "hot_in" "hot_out" "cold_in" "cold_out" "vapor" "vapour" "liquid" "steam" "water")
   "Port roles: the entries of a unit block that name streams.")
 
 (defconst hmb--properties
-  '("flow" "p" "T" "h" "s" "x" "fluid" "efficiency" "duty" "power" "heat_loss" "dp" "dp_hot"
+  '("flow" "p" "T" "h" "s" "x" "v" "fluid" "efficiency" "duty" "power" "heat_loss" "dp" "dp_hot"
     "dp_cold" "fuel" "sgen")
   "Stream properties, unit parameters and results.")
 

@@ -7,7 +7,8 @@
 usage: tools/grammar.py          rewrite both files
        tools/grammar.py --check  fail if either file differs from what the rules give
 
-The rules follow the scanner of the notation (lang/token): "#" comments to the end of the line,
+The words (unit kinds, roles, properties, settings) are read from tools/words.json, which the Go
+tests generate from the kind catalogue. The rules follow the scanner of the notation (lang/token): "#" comments to the end of the line,
 double-quoted strings with backslash escapes that end at the line's end if left open, names of
 letters, digits, "_" and "-", numbers, and a unit spelling after a number running to the next
 space or punctuation mark (spaces allowed inside parentheses: kJ/(kg K)).
@@ -20,10 +21,14 @@ NAME = r"[\p{L}_][\p{L}\p{N}_-]*"
 B = r"(?<![\p{L}\p{N}_-])"  # not inside a name
 E = r"(?![\p{L}\p{N}_-])"
 KEY = r"(?:^|(?<=[{;]))[ \t]*"  # where a statement or a block entry begins
-KINDS = "mixer|splitter|valve|heater|cooler|boiler|turbine|pump|exchanger|flash|desuperheater"
-ROLES = "in|out|hot_in|hot_out|cold_in|cold_out|vapor|liquid|steam|water"
-PROPS = "flow|p|T|h|s|x|efficiency|duty|power|heat_loss|dp|dp_hot|dp_cold|fuel|sgen"
-SETTINGS = "title|display|atmosphere|elevation|tolerance"
+# The notation's words come from the kind catalogue and the checker, through words.json (written
+# by `go test ./cmd/hmb -run EditorWords -update`, which then runs this script).
+with open(os.path.join(os.path.dirname(os.path.abspath(__file__)), "words.json"), encoding="utf-8") as _f:
+    WORDS = json.load(_f)
+KINDS = "|".join(WORDS["kinds"])
+ROLES = "|".join(WORDS["roles"])
+PROPS = "|".join(WORDS["properties"])
+SETTINGS = "|".join(WORDS["settings"])
 NUMBER = r"[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?"
 UNIT = r"(?!within" + E + r")(?:[^\s{},;#\"=<>±(]|\([^)\n]*\))+"
 

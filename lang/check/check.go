@@ -26,6 +26,7 @@ type Object struct {
 	KindName string      // the kind as written, for a unit
 	Label    string
 	Decl     *ast.Ident   // the name in its (first) declaration
+	Span     model.Span   // that declaration: the statement, or the name alone in a list of streams
 	Refs     []*ast.Ident // every other mention: port lists, expectation targets
 	Index    int          // index in Model.Streams or Model.Units; -1 when left out of the model
 }
@@ -207,6 +208,10 @@ func (c *checker) declare() {
 		}
 		o := take(&c.objects)
 		o.Name, o.IsUnit, o.Decl, o.Index = id.Name, isUnit, id, -1
+		o.Span = span(s)
+		if sd, ok := s.(*ast.StreamDecl); ok && len(sd.More) > 0 {
+			o.Span = span(id) // hints then sit beside each name, not all at the end of the list
+		}
 		c.info.Objects[id.Name] = o
 		c.info.Order = append(c.info.Order, o)
 		return o

@@ -33,10 +33,13 @@ func find[T any](s []seenKey[T], key string) (T, bool) {
 	return zero, false
 }
 
+// RoleAliases are the other spellings accepted for a role, with the role they stand for.
+var RoleAliases = map[string]string{"vapour": "vapor"}
+
 // canonicalRole maps other spellings accepted for a role to the role's name.
 func canonicalRole(role string) string {
-	if role == "vapour" {
-		return "vapor"
+	if r, ok := RoleAliases[role]; ok {
+		return r
 	}
 	return role
 }

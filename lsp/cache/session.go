@@ -10,21 +10,22 @@ import (
 
 // A Session is the set of open documents.
 type Session struct {
-	analyzer Analyzer
-	log      io.Writer
+	solver SolveFunc
+	log    io.Writer
 
 	mu   sync.Mutex
 	docs map[protocol.DocumentURI]*Snapshot // the latest snapshot of each open document
 }
 
-// NewSession makes an empty session analysing documents with a. log receives analyzer panics.
-func NewSession(a Analyzer, log io.Writer) *Session {
-	return &Session{analyzer: a, log: log, docs: make(map[protocol.DocumentURI]*Snapshot)}
+// NewSession makes an empty session solving documents with solver (nil: the check runs, nothing
+// is solved). log receives panics of the check and the solve.
+func NewSession(solver SolveFunc, log io.Writer) *Session {
+	return &Session{solver: solver, log: log, docs: make(map[protocol.DocumentURI]*Snapshot)}
 }
 
 // Open records a newly opened document (or replaces it, if the client opens it twice).
 func (s *Session) Open(uri protocol.DocumentURI, version int32, text []byte) *Snapshot {
-	snap := newSnapshot(uri, version, text, s.analyzer, s.log)
+	snap := newSnapshot(uri, version, text, s.solver, s.log)
 	s.mu.Lock()
 	old := s.docs[uri]
 	s.docs[uri] = snap
@@ -53,7 +54,7 @@ func (s *Session) Change(uri protocol.DocumentURI, version int32, changes []Chan
 	if err != nil {
 		return nil, err
 	}
-	snap := newSnapshot(uri, version, src, s.analyzer, s.log)
+	snap := newSnapshot(uri, version, src, s.solver, s.log)
 	s.docs[uri] = snap
 	old.cancel()
 	return snap, nil

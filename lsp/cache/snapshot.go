@@ -1,5 +1,5 @@
 // Package cache holds the server's state: open documents, one immutable snapshot per version of
-// each, and the analyses computed lazily from a snapshot.
+// each, and the notation's and the solver's results, computed lazily from a snapshot.
 package cache
 
 import (
@@ -13,44 +13,59 @@ import (
 
 	"go.lsp.dev/protocol"
 
+	"hmb/lang"
+	"hmb/lang/ast"
+	"hmb/lang/check"
+	"hmb/lang/source"
 	"hmb/thermo/model"
+	"hmb/thermo/solve"
 )
 
 // ErrSuperseded is returned when a newer version replaced (or closing removed) a snapshot
 // before its solution was found.
 var ErrSuperseded = errors.New("document changed")
 
+// SolveFunc solves a lowered model; it returns early, with a partial or empty result, when ctx
+// is done.
+type SolveFunc func(ctx context.Context, m *model.Model) *solve.Result
+
+// Solve is the solver hmb check runs, with its default options.
+func Solve(ctx context.Context, m *model.Model) *solve.Result {
+	return solve.Solve(ctx, m, solve.Options{})
+}
+
 // A Snapshot is one version of one document and everything derived from it. Its text never
-// changes; its analyses are computed at most once, on demand, and may be shared by any number of
+// changes; its results are computed at most once, on demand, and may be shared by any number of
 // requests.
 type Snapshot struct {
 	URI     protocol.DocumentURI
 	Version int32
 	Mapper  Mapper
 
-	analyzer Analyzer
-	log      io.Writer
+	solver SolveFunc
+	log    io.Writer
 
 	// ctx is cancelled when the snapshot is superseded or its document closed: that cancels its
 	// solve.
 	ctx    context.Context
 	cancel context.CancelFunc
 
-	syntaxOnce sync.Once
-	syntax     *Syntax
+	checkOnce sync.Once
+	checked   *lang.Result
+	tokens    []lang.Token
 
 	solveOnce sync.Once
 	solveDone chan struct{}
-	solution  *Solution
+	solution  *solve.Result
 }
 
-func newSnapshot(uri protocol.DocumentURI, version int32, src []byte, a Analyzer, log io.Writer) *Snapshot {
+func newSnapshot(uri protocol.DocumentURI, version int32, src []byte, solver SolveFunc, log io.Writer) *Snapshot {
 	ctx, cancel := context.WithCancel(context.Background())
 	return &Snapshot{
 		URI:       uri,
 		Version:   version,
 		Mapper:    NewMapper(string(uri), src),
-		analyzer:  a,
+		solver:    solver,
 		log:       log,
 		ctx:       ctx,
 		cancel:    cancel,
@@ -61,35 +76,40 @@ func newSnapshot(uri protocol.DocumentURI, version int32, src []byte, a Analyzer
 // Src is the text. Callers must not modify it.
 func (s *Snapshot) Src() []byte { return s.Mapper.File.Src }
 
-// Analyzer is the language the snapshot is analysed with.
-func (s *Snapshot) Analyzer() Analyzer { return s.analyzer }
-
 // Done is closed when a newer version supersedes the snapshot or the document is closed.
 func (s *Snapshot) Done() <-chan struct{} { return s.ctx.Done() }
 
 // Superseded reports whether Done is closed.
 func (s *Snapshot) Superseded() bool { return s.ctx.Err() != nil }
 
-// Syntax returns the fast analysis, computing it on first use.
-func (s *Snapshot) Syntax() *Syntax {
-	s.syntaxOnce.Do(func() {
+// Check returns the notation's check of the text (lang.Check: syntax, names, wiring, units,
+// lowering), computing it on first use. It is never nil; its Model is nil only when the check
+// failed inside (an internal error, reported as a diagnostic).
+func (s *Snapshot) Check() *lang.Result {
+	s.checkOnce.Do(func() {
 		defer func() {
 			if r := recover(); r != nil {
-				s.syntax = &Syntax{Diagnostics: []model.Diagnostic{s.internalError("check", r)}}
+				f := &ast.File{Src: source.New(string(s.URI), s.Src())}
+				s.checked = &lang.Result{File: f, Info: &check.Info{}, Diags: []model.Diagnostic{s.internalError("check", r)}}
+				s.tokens = nil
 			}
 		}()
-		s.syntax = s.analyzer.Check(string(s.URI), s.Src())
-		if s.syntax == nil {
-			s.syntax = &Syntax{}
-		}
+		s.checked = lang.Check(string(s.URI), s.Src())
+		s.tokens = s.checked.Tokens()
 	})
-	return s.syntax
+	return s.checked
+}
+
+// Tokens are the classified tokens of the text, in source order.
+func (s *Snapshot) Tokens() []lang.Token {
+	s.Check()
+	return s.tokens
 }
 
 // Solution returns the solver's result, starting the solve if nobody has. It waits until the
 // solve ends or ctx is done. The solve runs on the snapshot's own context, so a caller giving up
 // does not cancel it for the others; superseding the snapshot does.
-func (s *Snapshot) Solution(ctx context.Context) (*Solution, error) {
+func (s *Snapshot) Solution(ctx context.Context) (*solve.Result, error) {
 	s.solveOnce.Do(func() { go s.solve() })
 	select {
 	case <-s.solveDone:
@@ -103,7 +123,7 @@ func (s *Snapshot) Solution(ctx context.Context) (*Solution, error) {
 }
 
 // Solved returns the solution if the solve has finished, without starting or waiting for one.
-func (s *Snapshot) Solved() *Solution {
+func (s *Snapshot) Solved() *solve.Result {
 	select {
 	case <-s.solveDone:
 		return s.solution
@@ -114,28 +134,29 @@ func (s *Snapshot) Solved() *Solution {
 
 func (s *Snapshot) solve() {
 	defer close(s.solveDone)
-	syn := s.Syntax()
-	if syn.Model == nil {
-		s.solution = &Solution{}
+	m := s.Check().Model
+	if m == nil || s.solver == nil {
+		s.solution = &solve.Result{}
 		return
 	}
 	defer func() {
 		if r := recover(); r != nil {
-			s.solution = &Solution{Diagnostics: []model.Diagnostic{s.internalError("solve", r)}}
+			s.solution = &solve.Result{Diags: []model.Diagnostic{s.internalError("solve", r)}}
 		}
 	}()
-	sol := s.analyzer.Solve(s.ctx, syn)
+	sol := s.solver(s.ctx, m)
 	if s.ctx.Err() != nil {
 		return // superseded: a partial result must not be taken for the answer
 	}
 	if sol == nil {
-		sol = &Solution{}
+		sol = &solve.Result{}
 	}
 	s.solution = sol
 }
 
-// internalError turns a panic in the analyzer into a diagnostic at the top of the file, so that
-// the user learns that the check is incomplete, and logs the stack for the bug report.
+// internalError turns a panic in the check or the solve into a diagnostic at the top of the
+// file, so that the user learns that the check is incomplete, and logs the stack for the bug
+// report.
 func (s *Snapshot) internalError(stage string, r any) model.Diagnostic {
 	if s.log != nil {
 		fmt.Fprintf(s.log, "hmb lsp: panic in %s of %s version %d: %v\n%s", stage, s.URI, s.Version, r, debug.Stack())
@@ -150,12 +171,12 @@ func (s *Snapshot) internalError(stage string, r any) model.Diagnostic {
 
 // Diagnostics is the full set for the snapshot: the check's and, when sol is not nil, the
 // solver's, in hmb check's order (by start, the check's first among equals).
-func (s *Snapshot) Diagnostics(sol *Solution) []model.Diagnostic {
-	syn := s.Syntax()
-	out := make([]model.Diagnostic, 0, len(syn.Diagnostics))
-	out = append(out, syn.Diagnostics...)
+func (s *Snapshot) Diagnostics(sol *solve.Result) []model.Diagnostic {
+	res := s.Check()
+	out := make([]model.Diagnostic, 0, len(res.Diags))
+	out = append(out, res.Diags...)
 	if sol != nil {
-		out = append(out, sol.Diagnostics...)
+		out = append(out, sol.Diags...)
 	}
 	slices.SortStableFunc(out, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return out

@@ -10,42 +10,27 @@ import (
 
 // Definition returns where the name at off is declared, or nil.
 func Definition(snap *cache.Snapshot, off int) []protocol.Location {
-	syn := snap.Syntax()
-	i := refAt(syn, off)
-	if i < 0 || syn.Refs[i].Symbol < 0 {
+	o, _ := nameAt(snap.Check(), off)
+	if o == nil {
 		return nil
 	}
-	sym := syn.Symbols[syn.Refs[i].Symbol]
-	return []protocol.Location{{URI: snap.URI, Range: snap.Mapper.Range(sym.NameSpan)}}
+	return []protocol.Location{{URI: snap.URI, Range: snap.Mapper.Range(spanOf(o.Decl))}}
 }
 
 // References returns every occurrence of the name at off, in source order; the declaration only
 // when includeDecl.
 func References(snap *cache.Snapshot, off int, includeDecl bool) []protocol.Location {
-	syn := snap.Syntax()
-	i := refAt(syn, off)
-	if i < 0 {
+	res := snap.Check()
+	o, id := nameAt(res, off)
+	if id == nil {
 		return nil
 	}
 	out := []protocol.Location{}
-	for _, r := range sameName(syn, i) {
-		if r.Decl && !includeDecl {
+	for _, r := range occurrences(res, o, id) {
+		if o != nil && r == o.Decl && !includeDecl {
 			continue
 		}
-		out = append(out, protocol.Location{URI: snap.URI, Range: snap.Mapper.Range(r.Span)})
-	}
-	return out
-}
-
-// sameName returns the occurrences of what ref i names: the same symbol, or for an undefined
-// name every undefined use of the same spelling.
-func sameName(syn *cache.Syntax, i int) []cache.Ref {
-	ref := syn.Refs[i]
-	var out []cache.Ref
-	for _, r := range syn.Refs {
-		if ref.Symbol >= 0 && r.Symbol == ref.Symbol || ref.Symbol < 0 && r.Symbol < 0 && r.Name == ref.Name && r.Kind == ref.Kind {
-			out = append(out, r)
-		}
+		out = append(out, protocol.Location{URI: snap.URI, Range: snap.Mapper.Range(spanOf(r))})
 	}
 	return out
 }

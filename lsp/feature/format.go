@@ -7,6 +7,7 @@ import (
 
 	"go.lsp.dev/protocol"
 
+	"hmb/lang/format"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
 )
@@ -16,7 +17,7 @@ import (
 // Formatting needs neither the check nor the solve, so it never waits for them.
 func Format(snap *cache.Snapshot) ([]protocol.TextEdit, error) {
 	src := snap.Src()
-	out, err := snap.Analyzer().Format(string(snap.URI), src)
+	out, err := format.Source(string(snap.URI), src)
 	if err != nil {
 		return nil, err
 	}
@@ -30,9 +31,9 @@ func Format(snap *cache.Snapshot) ([]protocol.TextEdit, error) {
 // MinimalEdit returns one edit turning a into b: the span between their common prefix and common
 // suffix, widened to whole lines so that an editor keeps the cursor on unchanged lines. ok is
 // false when a and b are equal.
-func MinimalEdit(a, b []byte) (e cache.Edit, ok bool) {
+func MinimalEdit(a, b []byte) (e Edit, ok bool) {
 	if bytes.Equal(a, b) {
-		return cache.Edit{}, false
+		return Edit{}, false
 	}
 	p := 0
 	for p < len(a) && p < len(b) && a[p] == b[p] {
@@ -47,5 +48,11 @@ func MinimalEdit(a, b []byte) (e cache.Edit, ok bool) {
 	for s > 0 && a[len(a)-s-1] != '\n' {
 		s--
 	}
-	return cache.Edit{Span: model.Span{Start: p, End: len(a) - s}, NewText: string(b[p : len(b)-s])}, true
+	return Edit{Span: model.Span{Start: p, End: len(a) - s}, NewText: string(b[p : len(b)-s])}, true
+}
+
+// Edit replaces the text at Span.
+type Edit struct {
+	Span    model.Span
+	NewText string
 }

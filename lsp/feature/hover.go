@@ -1,8 +1,8 @@
 package feature
 
-// This file implements hover: the solved state of a stream, the balance of a unit, the solved
-// tables of the whole file on its title, the SI value of a unit spelling and one line of help on
-// keywords, kinds, roles, parameters and properties.
+// This file implements hover: the solved state of a stream, the balance and results of a unit,
+// the solved tables of the whole file on its title, the SI value of a unit spelling and one line
+// of help on keywords, kinds, roles, parameters, properties and results.
 
 import (
 	"context"
@@ -12,35 +12,36 @@ import (
 
 	"go.lsp.dev/protocol"
 
+	"hmb/lang"
+	"hmb/lang/check"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
+	"hmb/thermo/solve"
 	"hmb/thermo/units"
 )
 
 // Hover returns the hover at byte offset off, or nil when there is nothing to say. A hover on a
 // stream or unit waits (under ctx) for the snapshot's solution.
 func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover, error) {
-	syn := snap.Syntax()
+	res := snap.Check()
 	var text string
 	var span model.Span
-	if i := refAt(syn, off); i >= 0 && syn.Refs[i].Symbol >= 0 {
-		r := syn.Refs[i]
-		sym := &syn.Symbols[r.Symbol]
+	if o, id := nameAt(res, off); o != nil {
 		sol, err := snap.Solution(ctx)
 		if err != nil && ctx.Err() != nil {
 			return nil, err
 		}
 		// A superseded snapshot has no solution; describe the symbol without values.
-		span = r.Span
-		if sym.Kind == cache.StreamSymbol {
-			text = StreamHover(syn, sol, sym)
+		span = spanOf(id)
+		if o.IsUnit {
+			text = UnitHover(res, sol, o)
 		} else {
-			text = UnitHover(syn, sol, sym)
+			text = StreamHover(res, sol, o)
 		}
-	} else if t := tokenAt(syn, off); t >= 0 {
-		tok := syn.Tokens[t]
-		span = tok.Span
-		if sp, ok := titleSpan(snap.Src(), syn, t); ok && syn.Model != nil {
+	} else if t := tokenAt(snap.Tokens(), off); t >= 0 {
+		toks := snap.Tokens()
+		span = model.Span{Start: toks[t].Pos, End: toks[t].End}
+		if sp, ok := titleSpan(snap.Src(), toks, t); ok && res.Model != nil {
 			// The title stands for the whole file: its hover is the file's solved tables.
 			tables, err := Tables(ctx, snap)
 			if err != nil && ctx.Err() != nil {
@@ -51,7 +52,7 @@ func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover,
 			}
 		}
 		if text == "" {
-			text = tokenHover(snap, syn, t)
+			text = tokenHover(snap.Src(), res, toks, t)
 		}
 	}
 	if text == "" {
@@ -64,30 +65,25 @@ func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover,
 	}, nil
 }
 
-func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
-	tok := syn.Tokens[t]
-	word := string(snap.Src()[tok.Span.Start:tok.Span.End])
+func tokenHover(src []byte, res *lang.Result, toks []lang.Token, t int) string {
+	tok := toks[t]
+	word := string(src[tok.Pos:tok.End])
 	switch tok.Kind {
-	case cache.KeywordToken:
-		for _, k := range snap.Analyzer().Keywords() {
-			if k.Name == word {
-				return fmt.Sprintf("`%s`: %s", k.Name, k.Doc)
-			}
+	case lang.KeywordToken:
+		if doc := lang.KeywordDoc(word); doc != "" {
+			return fmt.Sprintf("`%s`: %s", word, doc)
 		}
-	case cache.KindToken:
+	case lang.KindToken:
 		if k := model.Kinds[word]; k != nil {
 			return fmt.Sprintf("`%s`: %s", k.Name, k.Doc)
 		}
-	case cache.RoleToken, cache.ParamToken:
-		u := enclosingUnit(syn, tok.Span.Start)
-		if u == nil {
+	case lang.RoleToken, lang.ParamToken:
+		u := enclosingUnit(res, tok.Pos)
+		if u == nil || u.Kind == nil {
 			return ""
 		}
-		k := model.Kinds[u.UnitKind]
-		if k == nil {
-			return ""
-		}
-		if p := k.Port(word); p != nil && tok.Kind == cache.RoleToken {
+		k := u.Kind
+		if p := k.Port(word); p != nil && tok.Kind == lang.RoleToken {
 			dir := "outlet"
 			if p.Inlet {
 				dir = "inlet"
@@ -97,54 +93,39 @@ func tokenHover(snap *cache.Snapshot, syn *cache.Syntax, t int) string {
 		if p := k.Param(word); p != nil {
 			return fmt.Sprintf("`%s` (%s parameter of a %s): %s", word, p.Dim, k.Name, p.Doc)
 		}
-	case cache.PropToken:
+	case lang.PropToken:
 		// After a unit's name (an expectation on a unit) the word is one of the unit's results.
-		if t > 0 && syn.Tokens[t-1].Kind == cache.UnitToken {
-			return resultHover(snap.Src(), syn, syn.Tokens[t-1].Span, word)
+		if t > 0 && toks[t-1].Kind == lang.UnitToken {
+			o := res.Info.Objects[string(src[toks[t-1].Pos:toks[t-1].End])]
+			if o == nil || o.Kind == nil {
+				return ""
+			}
+			if r := o.Kind.Result(word); r != nil {
+				return fmt.Sprintf("`%s` (%s result of a %s): %s", word, r.Dim, o.Kind.Name, r.Doc)
+			}
+			return ""
 		}
-		if doc := propDoc(word); doc != "" {
-			return fmt.Sprintf("`%s`: %s", word, doc)
+		if r := model.StreamResult(word); r != nil {
+			return fmt.Sprintf("`%s`: %s", word, r.Doc)
 		}
-	case cache.SpellingToken:
-		return SpellingHover(snap.Src(), syn, t)
-	}
-	return ""
-}
-
-// resultHover describes what an expectation checks on the unit named at name: the result's entry
-// in the kind catalogue.
-func resultHover(src []byte, syn *cache.Syntax, name model.Span, word string) string {
-	var k *model.Kind
-	for _, s := range syn.Symbols {
-		if s.Kind == cache.UnitSymbol && s.Name == string(src[name.Start:name.End]) {
-			k = model.Kinds[s.UnitKind]
-		}
-	}
-	if k == nil {
-		return ""
-	}
-	if r := k.Result(word); r != nil {
-		return fmt.Sprintf("`%s` (%s result of a %s): %s", word, r.Dim, k.Name, r.Doc)
-	}
-	return ""
-}
-
-// propDoc is the help on a stream property or result, from the catalogue.
-func propDoc(name string) string {
-	if r := model.StreamResult(name); r != nil {
-		return r.Doc
+	case lang.SpellingToken:
+		return SpellingHover(src, res, toks, t)
 	}
 	return ""
 }
 
 // SpellingHover describes the unit spelling of token t: its dimension and, when a number stands
 // before it, the value in SI base units.
-func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
-	tok := syn.Tokens[t]
-	spelling := string(src[tok.Span.Start:tok.Span.End])
+func SpellingHover(src []byte, res *lang.Result, toks []lang.Token, t int) string {
+	tok := toks[t]
+	spelling := string(src[tok.Pos:tok.End])
 	u, err := units.Lookup(spelling)
 	if err != nil {
 		return fmt.Sprintf("`%s`: %v", spelling, err)
+	}
+	atm := units.StandardAtmosphere
+	if res.Model != nil && res.Model.Atm > 0 {
+		atm = res.Model.Atm
 	}
 	var b strings.Builder
 	fmt.Fprintf(&b, "`%s`: %s", spelling, u.Dim())
@@ -153,9 +134,9 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 	}
 	switch u.Reading() {
 	case units.Gauge:
-		fmt.Fprintf(&b, ", gauge (above a site atmosphere of %s Pa)", units.Format(syn.Atm, 6))
+		fmt.Fprintf(&b, ", gauge (above a site atmosphere of %s Pa)", units.Format(atm, 6))
 	case units.Vacuum:
-		fmt.Fprintf(&b, ", vacuum (below a site atmosphere of %s Pa)", units.Format(syn.Atm, 6))
+		fmt.Fprintf(&b, ", vacuum (below a site atmosphere of %s Pa)", units.Format(atm, 6))
 	case units.Difference:
 		var rs []string
 		for _, r := range u.Readings() {
@@ -164,12 +145,10 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 		fmt.Fprintf(&b, ", a difference only (a pressure itself is %s)", strings.Join(rs, " or "))
 	}
 	base := units.Base(u.Dim()).Symbol()
-	if t > 0 && syn.Tokens[t-1].Kind == cache.NumberToken {
-		num := syn.Tokens[t-1].Span
-		raw := string(src[num.Start:num.End])
+	if t > 0 && toks[t-1].Kind == lang.NumberToken {
+		raw := string(src[toks[t-1].Pos:toks[t-1].End])
 		if v, _, err := units.ParseQuantity(raw); err == nil {
-			si := u.ToSI(v, syn.Atm)
-			fmt.Fprintf(&b, "\n\n%s %s = %s %s", raw, spelling, units.Format(si, 7), base)
+			fmt.Fprintf(&b, "\n\n%s %s = %s %s", raw, spelling, units.Format(u.ToSI(v, atm), 7), base)
 			if u.Relative() {
 				b.WriteString(" absolute")
 			}
@@ -182,76 +161,115 @@ func SpellingHover(src []byte, syn *cache.Syntax, t int) string {
 	return b.String()
 }
 
+// display is how a checked file shows its results.
+func display(res *lang.Result) units.Display {
+	if res.Model == nil {
+		return units.Display{}
+	}
+	return units.Display{System: res.Model.Display, Atm: res.Model.Atm}
+}
+
 // show writes an SI value in the display unit of its dimension; unknown values say so rather
 // than print NaN.
-func show(v float64, d units.Dim, sys units.System, atm float64) string {
+func show(d units.Display, dim units.Dim, v float64) string {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "unknown"
 	}
-	return units.Display{System: sys, Atm: atm}.Show(d, v)
+	return d.Show(dim, v)
 }
 
-// StreamHover is the Markdown description of a stream: its solved state, each value with where it
-// came from. sol may be nil (not solved: a newer version arrived, or the file did not lower).
-func StreamHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string {
+// StreamHover is the Markdown description of a stream: every stream result of the catalogue,
+// each value with where it came from. sol may be nil (not solved: a newer version arrived).
+func StreamHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "**stream** `%s`", sym.Name)
-	if sym.Label != "" {
-		fmt.Fprintf(&b, " %s", sym.Label)
+	fmt.Fprintf(&b, "**stream** `%s`", o.Name)
+	if o.Label != "" {
+		fmt.Fprintf(&b, " %s", o.Label)
 	}
-	if sol == nil || sym.Index < 0 || sym.Index >= len(sol.Streams) {
+	if sol == nil || res.Model == nil || o.Index < 0 || o.Index >= len(sol.Streams) {
 		b.WriteString("\n\nnot solved")
 		return b.String()
 	}
-	st := &sol.Streams[sym.Index]
+	sr := &sol.Streams[o.Index]
+	sub := model.Subject{Kind: model.StreamSubject, Index: o.Index}
+	disp := display(res)
 	b.WriteString("\n\n| | value | from |\n|---|---:|---|\n")
-	for q := cache.Quantity(0); q < cache.NumQuantities; q++ {
-		v := st.Values[q]
-		val := show(v, q.Dim(), syn.Display, syn.Atm)
-		if q == cache.QX && math.IsNaN(v) && st.Phase != "" {
+	for _, r := range model.StreamResults {
+		v, _, _ := sol.Value(res.Model, sub, r.Name)
+		val := show(disp, r.Dim, v)
+		if r.Name == "x" && math.IsNaN(v) && sr.HasState {
 			val = "none (single phase)"
 		}
-		fmt.Fprintf(&b, "| %s | %s | %s |\n", q, val, mdCell(st.Source[q]))
+		fmt.Fprintf(&b, "| %s | %s | %s |\n", r.Name, val, mdCell(source(sr, r.Name, v)))
 	}
-	phase := st.Phase
-	if phase == "" {
-		phase = "unknown"
+	phase := "unknown"
+	if sr.HasState {
+		phase = sr.State.Phase.String()
 	}
 	fmt.Fprintf(&b, "| phase | %s | |\n", mdCell(phase))
 	return b.String()
 }
 
-// UnitHover is the Markdown description of a unit: its mass and energy balance, duty or power,
-// and entropy generated.
-func UnitHover(syn *cache.Syntax, sol *cache.Solution, sym *cache.Symbol) string {
+// given is the source of a value the file states for the stream itself.
+const given = "given"
+
+// derived is the source of a value IAPWS-IF97 gives from the stream's p and h. The solver's own
+// label also names the sources of p and h, which the hover shows in their rows already.
+const derived = "IAPWS-IF97 from p and h"
+
+// source says where a stream's value came from: "given" for the stream's own given, else the
+// solver's label ("energy balance of mixer DA", "given S1 T"); "" when not solved, and for a
+// quality of a single-phase state, which comes from nowhere.
+func source(sr *solve.StreamResult, name string, v float64) string {
+	p := model.NumProps
+	for q := model.Prop(0); q < model.NumProps; q++ {
+		if q.String() == name {
+			p = q
+		}
+	}
+	switch {
+	case math.IsNaN(v):
+		return ""
+	case p == model.NumProps:
+		return derived // not a property a file gives: computed from the state
+	}
+	switch pv := sr.Source[p]; pv.Kind {
+	case solve.ProvNone:
+		return ""
+	case solve.ProvGiven:
+		return given
+	case solve.ProvDerived:
+		return derived
+	default:
+		return pv.Label
+	}
+}
+
+// UnitHover is the Markdown description of a unit: its mass and energy balance and every result
+// of its kind.
+func UnitHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "**%s** `%s`", sym.UnitKind, sym.Name)
-	if sym.Label != "" {
-		fmt.Fprintf(&b, " %s", sym.Label)
+	fmt.Fprintf(&b, "**%s** `%s`", o.KindName, o.Name)
+	if o.Label != "" {
+		fmt.Fprintf(&b, " %s", o.Label)
 	}
-	if k := model.Kinds[sym.UnitKind]; k != nil {
-		fmt.Fprintf(&b, "\n\n%s", k.Doc)
+	if o.Kind != nil {
+		fmt.Fprintf(&b, "\n\n%s", o.Kind.Doc)
 	}
-	if sol == nil || sym.Index < 0 || sym.Index >= len(sol.Units) {
+	if sol == nil || res.Model == nil || o.Index < 0 || o.Index >= len(sol.Units) {
 		b.WriteString("\n\nnot solved")
 		return b.String()
 	}
-	u := &sol.Units[sym.Index]
-	sys, atm := syn.Display, syn.Atm
+	u := &sol.Units[o.Index]
+	disp := display(res)
 	b.WriteString("\n\n| balance | in | out |\n|---|---:|---:|\n")
-	fmt.Fprintf(&b, "| mass | %s | %s |\n", show(u.MassIn, units.MassFlow, sys, atm), show(u.MassOut, units.MassFlow, sys, atm))
-	fmt.Fprintf(&b, "| energy | %s | %s |\n", show(u.EnergyIn, units.Power, sys, atm), show(u.EnergyOut, units.Power, sys, atm))
-	if !math.IsNaN(u.Duty) {
-		fmt.Fprintf(&b, "\nduty %s", show(u.Duty, units.Power, sys, atm))
-	}
-	if !math.IsNaN(u.Power) {
-		fmt.Fprintf(&b, "\npower %s", show(u.Power, units.Power, sys, atm))
-	}
-	if !math.IsNaN(u.Efficiency) {
-		fmt.Fprintf(&b, "\nefficiency %s", show(u.Efficiency, units.Dimensionless, sys, atm))
-	}
-	if !math.IsNaN(u.Sgen) {
-		fmt.Fprintf(&b, "\nentropy generated %s", show(u.Sgen, units.EntropyRate, sys, atm))
+	fmt.Fprintf(&b, "| mass | %s | %s |\n", show(disp, units.MassFlow, u.MassIn), show(disp, units.MassFlow, u.MassOut))
+	fmt.Fprintf(&b, "| energy | %s | %s |\n", show(disp, units.Power, u.EnergyIn), show(disp, units.Power, u.EnergyOut))
+	sub := model.Subject{Kind: model.UnitSubject, Index: o.Index}
+	for _, r := range res.Model.Results(sub) {
+		if v, _, _ := sol.Value(res.Model, sub, r.Name); !math.IsNaN(v) {
+			fmt.Fprintf(&b, "\n%s %s", r.Name, show(disp, r.Dim, v))
+		}
 	}
 	// A closure is known only for a balance that was redundant: it checks the givens.
 	if !math.IsNaN(u.MassClosure) {

@@ -8,22 +8,26 @@ import (
 	"math"
 	"strings"
 
+	"hmb/lang"
 	"hmb/lsp/cache"
 	"hmb/lsp/ext"
 	"hmb/thermo/model"
-	"hmb/thermo/units"
+	"hmb/thermo/solve"
 )
 
-// hinted are the quantities a stream hint may show, in order: the two that say at a glance where
-// a state lies. The rest stays in the hover.
-var hinted = []cache.Quantity{cache.QT, cache.QX}
+// streamHinted are the stream results a hint may show, in order: the two that say at a glance
+// where a state lies. The rest stays in the hover.
+var streamHinted = []string{"T", "x"}
+
+// unitHinted are the unit results a hint may show, where the unit's kind has them.
+var unitHinted = []string{"duty", "power"}
 
 // InlayHints returns the hints for declarations that end inside span. It waits (under ctx) for
 // the solution; a superseded snapshot gets none.
 func InlayHints(ctx context.Context, snap *cache.Snapshot, span model.Span) ([]ext.InlayHint, error) {
-	syn := snap.Syntax()
+	res := snap.Check()
 	out := []ext.InlayHint{}
-	if syn.Model == nil {
+	if res.Model == nil {
 		return out, nil
 	}
 	sol, err := snap.Solution(ctx)
@@ -33,24 +37,21 @@ func InlayHints(ctx context.Context, snap *cache.Snapshot, span model.Span) ([]e
 		}
 		return out, nil
 	}
-	for i := range syn.Symbols {
-		sym := &syn.Symbols[i]
-		if sym.Span.End < span.Start || sym.Span.End > span.End || sym.Index < 0 {
+	for _, o := range res.Info.Order {
+		if o.Span.End < span.Start || o.Span.End > span.End || o.Index < 0 {
 			continue
 		}
 		var label string
-		if sym.Kind == cache.StreamSymbol {
-			if sym.Index < len(sol.Streams) {
-				label = StreamHint(syn, &sol.Streams[sym.Index])
-			}
-		} else if sym.Index < len(sol.Units) {
-			label = UnitHint(syn, &sol.Units[sym.Index])
+		if o.IsUnit {
+			label = UnitHint(res, sol, o.Index)
+		} else {
+			label = StreamHint(res, sol, o.Index)
 		}
 		if label == "" {
 			continue
 		}
 		out = append(out, ext.InlayHint{
-			Position:    snap.Mapper.Position(sym.Span.End),
+			Position:    snap.Mapper.Position(o.Span.End),
 			Label:       label,
 			Kind:        ext.InlayHintType,
 			PaddingLeft: true,
@@ -59,35 +60,32 @@ func InlayHints(ctx context.Context, snap *cache.Snapshot, span model.Span) ([]e
 	return out, nil
 }
 
-// StreamHint lists the solved temperature and quality of a stream, when the file did not give
+// StreamHint lists the solved temperature and quality of stream i, when the file did not give
 // them: "T 99.606 C, x 0.9702". Quality shows only on and inside the saturation dome.
-func StreamHint(syn *cache.Syntax, st *cache.StreamState) string {
+func StreamHint(res *lang.Result, sol *solve.Result, i int) string {
+	if i >= len(sol.Streams) {
+		return ""
+	}
+	sub := model.Subject{Kind: model.StreamSubject, Index: i}
 	var parts []string
-	for _, q := range hinted {
-		v := st.Values[q]
-		if math.IsNaN(v) || math.IsInf(v, 0) || st.Source[q] == cache.Given {
+	for _, name := range streamHinted {
+		v, r, _ := sol.Value(res.Model, sub, name)
+		if math.IsNaN(v) || math.IsInf(v, 0) || source(&sol.Streams[i], name, v) == given {
 			continue
 		}
-		if q == cache.QX {
-			if v < 0 || v > 1 {
-				continue
-			}
-			parts = append(parts, "x "+show(v, units.Dimensionless, syn.Display, syn.Atm))
-			continue
-		}
-		parts = append(parts, q.String()+" "+show(v, q.Dim(), syn.Display, syn.Atm))
+		parts = append(parts, name+" "+display(res).Show(r.Dim, v))
 	}
 	return strings.Join(parts, ", ")
 }
 
-// UnitHint shows a unit's duty and shaft power, when it has them.
-func UnitHint(syn *cache.Syntax, u *cache.UnitBalance) string {
+// UnitHint shows unit i's duty and shaft power, when it has them.
+func UnitHint(res *lang.Result, sol *solve.Result, i int) string {
+	sub := model.Subject{Kind: model.UnitSubject, Index: i}
 	var parts []string
-	if !math.IsNaN(u.Duty) {
-		parts = append(parts, "duty "+show(u.Duty, units.Power, syn.Display, syn.Atm))
-	}
-	if !math.IsNaN(u.Power) {
-		parts = append(parts, "power "+show(u.Power, units.Power, syn.Display, syn.Atm))
+	for _, name := range unitHinted {
+		if v, r, ok := sol.Value(res.Model, sub, name); ok && !math.IsNaN(v) {
+			parts = append(parts, name+" "+display(res).Show(r.Dim, v))
+		}
 	}
 	return strings.Join(parts, ", ")
 }

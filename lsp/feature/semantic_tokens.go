@@ -5,23 +5,24 @@ package feature
 import (
 	"go.lsp.dev/protocol"
 
+	"hmb/lang"
 	"hmb/lsp/cache"
 )
 
-// TokenTypes is the legend's token types, indexed by cache.TokenKind.
-var TokenTypes = []protocol.SemanticTokenTypes{
-	cache.KeywordToken:  protocol.SemanticTokenKeyword,
-	cache.StreamToken:   protocol.SemanticTokenVariable,
-	cache.UnitToken:     protocol.SemanticTokenClass,
-	cache.KindToken:     protocol.SemanticTokenType,
-	cache.RoleToken:     protocol.SemanticTokenProperty,
-	cache.ParamToken:    protocol.SemanticTokenProperty,
-	cache.PropToken:     protocol.SemanticTokenProperty,
-	cache.NumberToken:   protocol.SemanticTokenNumber,
-	cache.SpellingToken: protocol.SemanticTokenEnumMember,
-	cache.StringToken:   protocol.SemanticTokenString,
-	cache.CommentToken:  protocol.SemanticTokenComment,
-	cache.OperatorToken: protocol.SemanticTokenOperator,
+// TokenTypes is the legend's token types, indexed by lang.TokenKind.
+var TokenTypes = [lang.NumTokenKinds]protocol.SemanticTokenTypes{
+	lang.KeywordToken:  protocol.SemanticTokenKeyword,
+	lang.StreamToken:   protocol.SemanticTokenVariable,
+	lang.UnitToken:     protocol.SemanticTokenClass,
+	lang.KindToken:     protocol.SemanticTokenType,
+	lang.RoleToken:     protocol.SemanticTokenProperty,
+	lang.ParamToken:    protocol.SemanticTokenProperty,
+	lang.PropToken:     protocol.SemanticTokenProperty,
+	lang.NumberToken:   protocol.SemanticTokenNumber,
+	lang.SpellingToken: protocol.SemanticTokenEnumMember,
+	lang.StringToken:   protocol.SemanticTokenString,
+	lang.CommentToken:  protocol.SemanticTokenComment,
+	lang.OperatorToken: protocol.SemanticTokenOperator,
 }
 
 // TokenModifiers is the legend's modifiers: bit 0 marks a declaration.
@@ -31,16 +32,16 @@ var TokenModifiers = []protocol.SemanticTokenModifiers{protocol.SemanticTokenMod
 // token running past the end of its line (none should) is cut there, since the server does not
 // assume multi-line token support.
 func SemanticTokens(snap *cache.Snapshot) *protocol.SemanticTokens {
-	syn := snap.Syntax()
+	toks := snap.Tokens()
 	m := snap.Mapper
-	data := make([]uint32, 0, 5*len(syn.Tokens))
+	data := make([]uint32, 0, 5*len(toks))
 	var prevLine, prevCol uint32
-	for _, t := range syn.Tokens {
-		if int(t.Kind) >= len(TokenTypes) || t.Span.End <= t.Span.Start {
+	for _, t := range toks {
+		if int(t.Kind) >= len(TokenTypes) || t.End <= t.Pos {
 			continue
 		}
-		start := m.Position(t.Span.Start)
-		end := m.Position(t.Span.End)
+		start := m.Position(t.Pos)
+		end := m.Position(t.End)
 		if end.Line != start.Line {
 			end = m.Position(m.LineEnd(int(start.Line)))
 		}

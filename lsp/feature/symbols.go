@@ -10,24 +10,29 @@ import (
 
 // Symbols returns the outline of the document.
 func Symbols(snap *cache.Snapshot) []protocol.DocumentSymbol {
-	syn := snap.Syntax()
-	out := make([]protocol.DocumentSymbol, 0, len(syn.Symbols))
-	for _, s := range syn.Symbols {
+	res := snap.Check()
+	out := make([]protocol.DocumentSymbol, 0, len(res.Info.Order))
+	for _, o := range res.Info.Order {
 		ds := protocol.DocumentSymbol{
-			Name:           s.Name,
-			Detail:         s.Label,
+			Name:           o.Name,
+			Detail:         o.Label,
 			Kind:           protocol.SymbolKindVariable,
-			Range:          snap.Mapper.Range(s.Span),
-			SelectionRange: snap.Mapper.Range(s.NameSpan),
+			Range:          snap.Mapper.Range(o.Span),
+			SelectionRange: snap.Mapper.Range(spanOf(o.Decl)),
 		}
-		if s.Kind == cache.UnitSymbol {
+		if o.IsUnit {
 			ds.Kind = protocol.SymbolKindClass
-			ds.Detail = s.UnitKind
-			if s.Label != "" {
-				ds.Detail += " " + s.Label
-			}
+			ds.Detail = unitDetail(o.KindName, o.Label)
 		}
 		out = append(out, ds)
 	}
 	return out
+}
+
+// unitDetail is a unit's kind and label: "turbine hp turbine".
+func unitDetail(kind, label string) string {
+	if label != "" {
+		return kind + " " + label
+	}
+	return kind
 }

@@ -6,28 +6,40 @@ package feature
 import (
 	"context"
 	"net/url"
+	"slices"
+	"strings"
 
+	"hmb/lang"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
+	"hmb/thermo/report"
 )
 
 // CommandStreamTable is the command that returns the tables of the document whose URI is its
 // one argument, as Markdown.
 const CommandStreamTable = "hmb.streamTable"
 
-// Tables returns the stream and unit tables of the snapshot as Markdown, waiting (under ctx) for
-// its solution. A superseded snapshot, which will have no solution, tabulates as unsolved.
+// Tables returns the stream and unit tables of the snapshot as Markdown, the very tables hmb
+// table prints, waiting (under ctx) for its solution. A superseded snapshot, which will have no
+// solution, tabulates as unsolved.
 func Tables(ctx context.Context, snap *cache.Snapshot) (string, error) {
-	syn := snap.Syntax()
-	var sol *cache.Solution
-	if syn.Model != nil {
-		var err error
-		sol, err = snap.Solution(ctx)
+	res := snap.Check()
+	in := &report.Input{Path: docName(string(snap.URI)), Src: snap.Src(), Model: res.Model, Diags: slices.Clone(res.Diags)}
+	if res.Model != nil {
+		sol, err := snap.Solution(ctx)
 		if err != nil && ctx.Err() != nil {
 			return "", err
 		}
+		if sol != nil {
+			in.Result = sol
+			in.Diags = append(in.Diags, sol.Diags...)
+		}
 	}
-	return snap.Analyzer().Tables(docName(string(snap.URI)), snap.Src(), syn, sol)
+	var b strings.Builder
+	if err := report.WriteMarkdown(&b, in); err != nil {
+		return "", err
+	}
+	return b.String(), nil
 }
 
 // docName is the name a document goes by in a report: the path of a file URI, else the URI.
@@ -40,21 +52,21 @@ func docName(uri string) string {
 }
 
 // titleSpan returns the span of the title setting when token t is its keyword or its string.
-func titleSpan(src []byte, syn *cache.Syntax, t int) (model.Span, bool) {
+func titleSpan(src []byte, toks []lang.Token, t int) (model.Span, bool) {
 	isTitle := func(i int) bool {
-		tok := syn.Tokens[i]
-		return tok.Kind == cache.KeywordToken && string(src[tok.Span.Start:tok.Span.End]) == "title"
+		tok := toks[i]
+		return tok.Kind == lang.KeywordToken && string(src[tok.Pos:tok.End]) == "title"
 	}
-	tok := syn.Tokens[t]
+	tok := toks[t]
 	switch {
 	case isTitle(t):
-		sp := tok.Span
-		if t+1 < len(syn.Tokens) && syn.Tokens[t+1].Kind == cache.StringToken {
-			sp.End = syn.Tokens[t+1].Span.End
+		sp := model.Span{Start: tok.Pos, End: tok.End}
+		if t+1 < len(toks) && toks[t+1].Kind == lang.StringToken {
+			sp.End = toks[t+1].End
 		}
 		return sp, true
-	case tok.Kind == cache.StringToken && t > 0 && isTitle(t-1):
-		return model.Span{Start: syn.Tokens[t-1].Span.Start, End: tok.Span.End}, true
+	case tok.Kind == lang.StringToken && t > 0 && isTitle(t-1):
+		return model.Span{Start: toks[t-1].Pos, End: tok.End}, true
 	}
 	return model.Span{}, false
 }

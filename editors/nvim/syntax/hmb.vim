@@ -19,8 +19,8 @@ syn keyword hmbSetting   display nextgroup=hmbSystem skipwhite
 syn keyword hmbSystem    SI US contained
 syn keyword hmbKind      mixer splitter valve heater cooler boiler turbine pump exchanger flash desuperheater nextgroup=hmbUnitDecl skipwhite
 syn match   hmbUnitDecl  "\k\+" contained
-syn keyword hmbRole      in out hot_in hot_out cold_in cold_out vapor liquid steam water
-syn keyword hmbProperty  flow p T h s x efficiency duty power heat_loss dp dp_hot dp_cold fuel sgen
+syn keyword hmbRole      in out hot_in hot_out cold_in cold_out vapor vapour liquid steam water
+syn keyword hmbProperty  flow p T h s x v efficiency duty power heat_loss dp dp_hot dp_cold fuel sgen
 syn keyword hmbProperty  fluid nextgroup=hmbFluid skipwhite
 syn keyword hmbFluid     water steam contained
 syn keyword hmbOperator  within
