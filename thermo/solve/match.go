@@ -24,7 +24,6 @@ package solve
 // before keeps every equation it matched.
 type matcher struct {
 	st     *structure
-	sys    *System
 	budget int // steps the depth-first searches may take before Hopcroft-Karp takes over
 
 	// Depth-first search.
@@ -53,9 +52,8 @@ type frame struct {
 	k int32 // unknowns of e tried so far
 }
 
-func newMatcher(st *structure, sys *System, edges int) *matcher {
-	ne := len(sys.Eqs)
-	m := &matcher{st: st, sys: sys, budget: searchBudget*(edges+ne+len(sys.Vars)) + 1024,
+func newMatcher(st *structure, ne, nv int) *matcher {
+	m := &matcher{st: st, budget: searchBudget*(len(st.eqVar)+ne+nv) + 1024,
 		dead: make([]bool, ne), seen: make([]int32, ne), index: make([]int32, ne), low: make([]int32, ne), open: make([]bool, ne),
 		dist: make([]int32, ne), next: make([]int32, ne)}
 	for e := range m.dist {
@@ -88,7 +86,7 @@ func (m *matcher) match(free []int) error {
 // It stops, with nothing flipped, when the time limit passes or the budget is spent; match then
 // hands root on.
 func (m *matcher) search(root int) (bool, error) {
-	st, sys := m.st, m.sys
+	st := m.st
 	m.stamp++
 	if m.stamp <= 0 { // wrapped: old stamps could collide
 		clear(m.seen)
@@ -111,7 +109,7 @@ func (m *matcher) search(root int) (bool, error) {
 	for len(m.call) > 0 {
 		fr := &m.call[len(m.call)-1]
 		e := fr.e
-		vars := sys.Eqs[e].Vars
+		vars := st.vars(e)
 		if int(fr.k) < len(vars) {
 			if st.tick() {
 				return false, st.ctx.Err()
@@ -126,8 +124,8 @@ func (m *matcher) search(root int) (bool, error) {
 			case f < 0:
 				// Flip the path: each equation on it takes the unknown it was trying.
 				for _, g := range m.call {
-					w := sys.Eqs[g.e].Vars[g.k-1]
-					st.matchVar[w], st.matchEq[g.e] = g.e, w
+					w := st.vars(g.e)[g.k-1]
+					st.matchVar[w], st.matchEq[g.e] = g.e, int(w)
 				}
 				return true, nil
 			case m.dead[f]:
@@ -163,7 +161,7 @@ func (m *matcher) search(root int) (bool, error) {
 // hopcroftKarp augments the matching from the unmatched equations free until no augmenting path
 // is left.
 func (m *matcher) hopcroftKarp(free []int) error {
-	st, sys := m.st, m.sys
+	st := m.st
 	m.live = m.live[:0]
 	for _, e := range free {
 		if !m.dead[e] {
@@ -197,7 +195,7 @@ func (m *matcher) hopcroftKarp(free []int) error {
 			if last >= 0 && d >= last {
 				break
 			}
-			for _, v := range sys.Eqs[e].Vars {
+			for _, v := range st.vars(e) {
 				if st.tick() {
 					return st.ctx.Err()
 				}
@@ -237,7 +235,7 @@ func (m *matcher) hopcroftKarp(free []int) error {
 // layered looks for a shortest augmenting path from root along the phase's layers, iteratively
 // (a path through a chain of 100,000 units is as deep), and flips it when found.
 func (m *matcher) layered(root int, last int32) (bool, error) {
-	st, sys := m.st, m.sys
+	st := m.st
 	if m.dist[root] != 0 {
 		return false, nil
 	}
@@ -246,7 +244,7 @@ func (m *matcher) layered(root int, last int32) (bool, error) {
 	for len(m.call) > 0 {
 		fr := &m.call[len(m.call)-1]
 		e := fr.e
-		vars := sys.Eqs[e].Vars
+		vars := st.vars(e)
 		if int(m.next[e]) >= len(vars) {
 			m.dist[e] = -1
 			m.call = m.call[:len(m.call)-1]
@@ -259,8 +257,8 @@ func (m *matcher) layered(root int, last int32) (bool, error) {
 		f := st.matchVar[v]
 		if f < 0 && m.dist[e] == last {
 			for _, g := range m.call {
-				w := sys.Eqs[g.e].Vars[m.next[g.e]]
-				st.matchVar[w], st.matchEq[g.e] = g.e, w
+				w := st.vars(g.e)[m.next[g.e]]
+				st.matchVar[w], st.matchEq[g.e] = g.e, int(w)
 				m.dist[g.e] = -1 // on a path now: no other path of this phase may pass it
 			}
 			return true, nil

@@ -18,7 +18,8 @@ func plainMatching(sys *System) (matchEq, matchVar []int) {
 	for i := range matchVar {
 		matchVar[i] = -1
 	}
-	skip := loopRedundant(sys)
+	g := newGraph(sys)
+	skip := g.loopRedundant(len(sys.Vars))
 	seen := make([]int, len(sys.Vars))
 	stamp := 0
 	var try func(e int) bool

@@ -179,10 +179,12 @@ func (s *solveRun) run() {
 	} else {
 		s.neighbours()
 		s.underSpecified()
+		sys.memo = make([]memoState, len(s.m.Streams))
 		s.solveBlocks()
 	}
 	s.res.X = s.x
 	s.streamResults()
+	sys.memo = nil
 	s.res.Units = make([]UnitResult, len(s.m.Units))
 	for i := range s.res.Units {
 		s.res.Units[i] = nanUnit()
@@ -260,8 +262,8 @@ func (s *solveRun) solveBlocks() {
 		}
 		ready := true
 		for _, e := range blk {
-			for _, v := range sys.Eqs[e].Vars {
-				if !s.solved[v] && !contains(vars, v) {
+			for _, v := range s.st.vars(e) {
+				if !s.solved[v] && !contains(vars, int(v)) {
 					ready = false
 				}
 			}
@@ -453,6 +455,7 @@ func (s *solveRun) source(v int) string {
 func (s *solveRun) streamResults() {
 	sys := s.b.sys
 	s.res.Streams = make([]StreamResult, len(s.m.Streams))
+	book := sys.book(s.x)
 	var outside []outsideState
 	for i, st := range s.m.Streams {
 		r := &s.res.Streams[i]
@@ -473,7 +476,7 @@ func (s *solveRun) streamResults() {
 			// stream shows no state; its error is reported where the given is written.
 			continue
 		}
-		state, err := streamState(s.x[pv], s.x[hv])
+		state, err := book.state(s.x[pv], s.x[hv])
 		if err != nil {
 			outside = append(outside, outsideState{stream: i, err: err})
 			continue

@@ -193,9 +193,25 @@ func (b *builder) propGiven(i int, p model.Prop, g *model.Given) Equation {
 	var of func(pp, hh float64) (float64, error)
 	var inv func(pp float64) (float64, error)
 	floor := 1e-3
+	sys := b.sys
+	// Every state computed here is remembered for the stream's result (see System.memo).
+	ph := func(pp, hh float64) (if97.State, error) {
+		st, err := statePH(pp, hh)
+		if err == nil {
+			sys.remember(i, pp, hh, st, false)
+		}
+		return st, err
+	}
+	keep := func(pp float64, st if97.State, err error) (float64, error) {
+		if err != nil {
+			return st.H, err
+		}
+		sys.remember(i, pp, st.H, st, p == model.X && (val == 0 || val == 1))
+		return st.H, nil
+	}
 	switch p {
 	case model.T:
-		of = func(pp, hh float64) (float64, error) { st, err := statePH(pp, hh); return st.T, err }
+		of = func(pp, hh float64) (float64, error) { st, err := ph(pp, hh); return st.T, err }
 		win := satWindow(g)
 		inv = func(pp float64) (float64, error) {
 			if pp < pCrit {
@@ -204,14 +220,14 @@ func (b *builder) propGiven(i int, p model.Prop, g *model.Given) Equation {
 				}
 			}
 			st, err := if97.PT(pp, val)
-			return st.H, err
+			return keep(pp, st, err)
 		}
 	case model.S:
-		of = func(pp, hh float64) (float64, error) { st, err := statePH(pp, hh); return st.S, err }
-		inv = func(pp float64) (float64, error) { st, err := if97.PS(pp, val); return st.H, err }
+		of = func(pp, hh float64) (float64, error) { st, err := ph(pp, hh); return st.S, err }
+		inv = func(pp float64) (float64, error) { st, err := if97.PS(pp, val); return keep(pp, st, err) }
 	default: // quality
 		of = qualityExt
-		inv = func(pp float64) (float64, error) { st, err := if97.PX(pp, val); return st.H, err }
+		inv = func(pp float64) (float64, error) { st, err := if97.PX(pp, val); return keep(pp, st, err) }
 		floor = 1
 	}
 	return Equation{

@@ -6,12 +6,55 @@ import "context"
 type structure struct {
 	matchEq  []int   // equation -> unknown it determines, or -1 (left over: over-specified)
 	matchVar []int   // unknown -> equation that determines it, or -1 (under-specified)
-	varEqs   [][]int // unknown -> equations touching it
 	blocks   [][]int // strongly connected groups of matched equations, in solving order
+	graph
 	// steps counts the edges the analysis scanned (matching, ordering and the searches behind
 	// the diagnostics): the measure of its work that the scaling tests hold linear.
 	steps int
 	ctx   context.Context
+}
+
+// graph is the incidence of equations and unknowns in both directions, each as one array in
+// compressed rows: the searches of the analysis pass over it many times, and reading it from
+// the Equations themselves (large, each with its own slice) would miss the cache at every step.
+type graph struct {
+	eqStart, eqVar  []int32 // unknowns of equation e: eqVar[eqStart[e]:eqStart[e+1]], as Equation.Vars
+	varStart, varEq []int32 // equations touching unknown v, in index order
+	given, mass     []bool  // equation kinds the analysis asks about
+}
+
+func (g *graph) vars(e int) []int32 { return g.eqVar[g.eqStart[e]:g.eqStart[e+1]] }
+func (g *graph) eqs(v int) []int32  { return g.varEq[g.varStart[v]:g.varStart[v+1]] }
+
+func newGraph(sys *System) graph {
+	nv, ne := len(sys.Vars), len(sys.Eqs)
+	g := graph{eqStart: make([]int32, ne+1), varStart: make([]int32, nv+1), given: make([]bool, ne), mass: make([]bool, ne)}
+	n := 0
+	for e := range sys.Eqs {
+		n += len(sys.Eqs[e].Vars)
+	}
+	g.eqVar, g.varEq = make([]int32, 0, n), make([]int32, n)
+	for e := range sys.Eqs {
+		eq := &sys.Eqs[e]
+		g.given[e], g.mass[e] = eq.Kind == EqGiven, eq.Kind == EqMass
+		for _, v := range eq.Vars {
+			g.eqVar = append(g.eqVar, int32(v))
+			g.varStart[v+1]++
+		}
+		g.eqStart[e+1] = int32(len(g.eqVar))
+	}
+	for v := range nv {
+		g.varStart[v+1] += g.varStart[v]
+	}
+	fill := make([]int32, nv)
+	copy(fill, g.varStart)
+	for e := range ne {
+		for _, v := range g.vars(e) {
+			g.varEq[fill[v]] = int32(e)
+			fill[v]++
+		}
+	}
+	return g
 }
 
 // checkEvery is how many steps the analysis takes between looks at the time limit.
@@ -23,46 +66,27 @@ const checkEvery = 1 << 14
 // equation f determines"). It returns ctx's error when the time limit cuts the analysis short.
 func analyse(ctx context.Context, sys *System) (*structure, error) {
 	nv, ne := len(sys.Vars), len(sys.Eqs)
-	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), varEqs: make([][]int, nv), ctx: ctx}
+	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), graph: newGraph(sys), ctx: ctx}
 	for i := range st.matchEq {
 		st.matchEq[i] = -1
 	}
 	for i := range st.matchVar {
 		st.matchVar[i] = -1
 	}
-	// varEqs as sub-slices of one array (counted, then filled): one allocation, not one per unknown.
-	count := make([]int, nv+1)
-	for e := range sys.Eqs {
-		for _, v := range sys.Eqs[e].Vars {
-			count[v+1]++
-		}
-	}
-	for v := 0; v < nv; v++ {
-		count[v+1] += count[v]
-	}
-	flat := make([]int, count[nv])
-	for v := 0; v < nv; v++ {
-		st.varEqs[v] = flat[count[v]:count[v]:count[v+1]]
-	}
-	for e := range sys.Eqs {
-		for _, v := range sys.Eqs[e].Vars {
-			st.varEqs[v] = append(st.varEqs[v], e)
-		}
-	}
-	st.steps += 2 * len(flat)
-	skip := loopRedundant(sys)
-	m := newMatcher(st, sys, len(flat))
+	st.steps += 2 * len(st.eqVar)
+	skip := st.loopRedundant(nv)
+	m := newMatcher(st, ne, nv)
 	var free []int
 	for _, givens := range []bool{true, false} {
 		free = free[:0]
-		for e := range sys.Eqs { // cheap pass: a free unknown at hand
-			if (sys.Eqs[e].Kind == EqGiven) != givens || skip[e] {
+		for e := range ne { // cheap pass: a free unknown at hand
+			if st.given[e] != givens || skip[e] {
 				continue
 			}
-			for _, v := range sys.Eqs[e].Vars {
+			for _, v := range st.vars(e) {
 				st.steps++
 				if st.matchVar[v] < 0 {
-					st.matchVar[v], st.matchEq[e] = e, v
+					st.matchVar[v], st.matchEq[e] = e, int(v)
 					break
 				}
 			}
@@ -74,7 +98,7 @@ func analyse(ctx context.Context, sys *System) (*structure, error) {
 			return st, err
 		}
 	}
-	st.blocks = st.order(sys)
+	st.blocks = st.order()
 	if err := ctx.Err(); err != nil {
 		return st, err
 	}
@@ -85,8 +109,8 @@ func analyse(ctx context.Context, sys *System) (*structure, error) {
 // deep). Tarjan emits a component only after every component it reaches, which is exactly the
 // order in which they can be solved. It stops early, with the blocks found so far, when the
 // time limit passes; analyse then reports the limit.
-func (st *structure) order(sys *System) [][]int {
-	ne := len(sys.Eqs)
+func (st *structure) order() [][]int {
+	ne := len(st.matchEq)
 	matched := 0
 	for _, v := range st.matchEq {
 		if v >= 0 {
@@ -116,11 +140,11 @@ func (st *structure) order(sys *System) [][]int {
 		onStack[root] = true
 		for len(call) > 0 {
 			f := &call[len(call)-1]
-			if vars := sys.Eqs[f.e].Vars; int(f.k) < len(vars) {
+			if vars := st.vars(f.e); int(f.k) < len(vars) {
 				if st.tick() {
 					return blocks
 				}
-				v := vars[f.k] // the k-th dependency of e: the equation that fixes v
+				v := int(vars[f.k]) // the k-th dependency of e: the equation that fixes v
 				f.k++
 				w := st.matchVar[v]
 				if v == st.matchEq[f.e] || w < 0 {
@@ -171,7 +195,7 @@ func (st *structure) underdetermined(sys *System, u int, mark []int, stamp int) 
 	mark[u] = stamp
 	for k := 0; k < len(queue); k++ {
 		v := queue[k]
-		for _, e := range st.varEqs[v] {
+		for _, e := range st.eqs(v) {
 			st.steps++
 			w := st.matchEq[e]
 			if w >= 0 && mark[w] != stamp {
@@ -196,7 +220,7 @@ func (st *structure) determining(sys *System, e int) []int {
 	queue := []int{e}
 	var givens []int
 	for k := 0; k < len(queue) && len(givens) < 8; k++ {
-		for _, v := range sys.Eqs[queue[k]].Vars {
+		for _, v := range st.vars(queue[k]) {
 			st.steps++
 			f := st.matchVar[v]
 			if f < 0 || seenE[f] {
@@ -204,7 +228,7 @@ func (st *structure) determining(sys *System, e int) []int {
 			}
 			seenE[f] = true
 			queue = append(queue, f)
-			if sys.Eqs[f].Kind == EqGiven {
+			if st.given[f] {
 				givens = append(givens, f)
 			}
 		}
@@ -218,14 +242,14 @@ func (st *structure) determining(sys *System, e int) []int {
 // balances sum to zero whatever the flows, so one of them says nothing. The matching cannot see
 // this: it would count that balance on to fix a flow and leave a singular block. Left out of the
 // matching, the balance is checked after solving like any other redundant one.
-func loopRedundant(sys *System) []bool {
-	ne, nv := len(sys.Eqs), len(sys.Vars)
+func (g *graph) loopRedundant(nv int) []bool {
+	ne := len(g.mass)
 	skip := make([]bool, ne)
-	parent := make([]int, ne) // union-find over mass balances, by equation index
+	parent := make([]int32, ne) // union-find over mass balances, by equation index
 	for e := range parent {
-		parent[e] = e
+		parent[e] = int32(e)
 	}
-	find := func(e int) int {
+	find := func(e int32) int32 {
 		for parent[e] != e {
 			parent[e] = parent[parent[e]]
 			e = parent[e]
@@ -233,19 +257,19 @@ func loopRedundant(sys *System) []bool {
 		return e
 	}
 	// For each flow unknown: how many mass balances it appears in, and the first two.
-	count := make([]int, nv)
-	first := make([]int, nv)
-	second := make([]int, nv)
-	for e := range sys.Eqs {
-		if sys.Eqs[e].Kind != EqMass {
+	count := make([]int32, nv)
+	first := make([]int32, nv)
+	second := make([]int32, nv)
+	for e := range ne {
+		if !g.mass[e] {
 			continue
 		}
-		for _, v := range sys.Eqs[e].Vars {
+		for _, v := range g.vars(e) {
 			switch count[v] {
 			case 0:
-				first[v] = e
+				first[v] = int32(e)
 			case 1:
-				second[v] = e
+				second[v] = int32(e)
 			}
 			count[v]++
 		}
@@ -263,13 +287,13 @@ func loopRedundant(sys *System) []bool {
 			open[find(first[v])] = true
 		}
 	}
-	last := make([]int, ne) // by root: the last balance of the group, the one left out
+	last := make([]int32, ne) // by root: the last balance of the group, the one left out
 	for e := range last {
 		last[e] = -1
 	}
-	for e := range sys.Eqs {
-		if sys.Eqs[e].Kind == EqMass {
-			last[find(e)] = e
+	for e := range ne {
+		if g.mass[e] {
+			last[find(int32(e))] = int32(e)
 		}
 	}
 	for root, e := range last {

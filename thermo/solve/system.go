@@ -3,6 +3,7 @@ package solve
 import (
 	"math"
 
+	"hmb/thermo/if97"
 	"hmb/thermo/model"
 	"hmb/thermo/units"
 )
@@ -66,6 +67,63 @@ type System struct {
 	// streamVar[i] holds the indices of stream i's m, p and h unknowns.
 	streamVar [][3]int
 	unitVar   []map[string]int
+	// memo holds, while Solve runs, the last state each stream's equations computed and the
+	// (p, h) it was computed at: when the solve ends on that pair, the stream's result reuses it
+	// rather than inverting (p, h) once more. Nil outside Solve, so that a later user of the
+	// System (which may evaluate it from several goroutines) writes nothing.
+	memo []memoState
+}
+
+// memoState is one stream's remembered state. final marks a saturated end from PX, which is
+// already what streamState would snap to.
+type memoState struct {
+	p, h  float64
+	st    if97.State
+	final bool
+}
+
+// remember keeps st as stream i's state at (p, h) while Solve runs.
+func (s *System) remember(i int, p, h float64, st if97.State, final bool) {
+	if s.memo != nil && i >= 0 && i < len(s.memo) {
+		s.memo[i] = memoState{p: p, h: h, st: st, final: final}
+	}
+}
+
+// stateBook gives the states of the solved streams: the one a stream's equations computed at
+// its final (p, h) when there is one, else a fresh inversion of (p, h); every stream at the same
+// (p, h) (a tee's outlets and inlet) gets the same state, so that their entropies cancel exactly.
+// Each shows its solved p and h as they are, not as the property library rounds them on the
+// way through its own units.
+type stateBook map[[2]float64]if97.State
+
+// book collects the remembered states that the solution x ended on.
+func (s *System) book(x []float64) stateBook {
+	b := stateBook{}
+	for i, m := range s.memo {
+		if m.p != x[s.streamVar[i][1]] || m.h != x[s.streamVar[i][2]] || !finite(m.p) || !finite(m.h) {
+			continue
+		}
+		st := m.st
+		if !m.final {
+			st = snapSat(st, m.p, m.h)
+		}
+		st.P, st.H = m.p, m.h
+		b[[2]float64{m.p, m.h}] = st
+	}
+	return b
+}
+
+// state is the state at (p, h).
+func (b stateBook) state(p, h float64) (if97.State, error) {
+	if st, ok := b[[2]float64{p, h}]; ok {
+		return st, nil
+	}
+	st, err := streamState(p, h)
+	if err == nil {
+		st.P, st.H = p, h
+		b[[2]float64{p, h}] = st
+	}
+	return st, err
 }
 
 // Work counts what a solve did: a measure of its cost that, unlike time, does not depend on the

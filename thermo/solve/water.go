@@ -34,34 +34,42 @@ const satSnap = 1e-8
 // (within satSnap) reported as the saturated liquid or vapour itself, quality exactly 0 or 1.
 func streamState(p, h float64) (if97.State, error) {
 	st, err := statePH(p, h)
-	if err != nil || !(p < pCrit) {
+	if err != nil {
 		return st, err
+	}
+	return snapSat(st, p, h), nil
+}
+
+// snapSat is streamState's snapping of a state st found at (p, h), however it was found.
+func snapSat(st if97.State, p, h float64) if97.State {
+	if !(p < pCrit) {
+		return st
 	}
 	if math.IsNaN(st.X) {
 		// Single phase: near the line only if T is within a hair of Tsat(p) (the cheap test,
 		// before the saturated ends, which near the critical point need an iteration).
 		ts, err := if97.Tsat(p)
 		if err != nil || math.Abs(st.T-ts) > 1e-3 {
-			return st, nil
+			return st
 		}
 	} else if st.X > satSnap && st.X < 1-satSnap {
-		return st, nil
+		return st
 	}
-	hl, hv, err2 := satEnds(p)
-	if err2 != nil {
-		return st, nil
+	hl, hv, err := satEnds(p)
+	if err != nil {
+		return st
 	}
 	switch {
 	case math.Abs(h-hl) <= satSnap*math.Abs(hl):
 		if sat, err := if97.PX(p, 0); err == nil {
-			return sat, nil
+			return sat
 		}
 	case math.Abs(h-hv) <= satSnap*math.Abs(hv):
 		if sat, err := if97.PX(p, 1); err == nil {
-			return sat, nil
+			return sat
 		}
 	}
-	return st, nil
+	return st
 }
 
 var errNotFinite = errors.New("not a finite number")
