@@ -43,11 +43,15 @@ func runProps(args []string, stdout io.Writer) error {
 	if err != nil {
 		return usageErr("%v", err)
 	}
-	if fs.NArg() != 2 {
-		return usageErr("need exactly two properties, e.g. p=150psig x=1 (got %d)", fs.NArg())
+	pairs, err := propPairs(fs.Args())
+	if err != nil {
+		return usageErr("%v", err)
+	}
+	if len(pairs) != 2 {
+		return usageErr("need exactly two properties, e.g. p=150psig x=1 (got %d)", len(pairs))
 	}
 	var in [2]propInput
-	for i, a := range fs.Args() {
+	for i, a := range pairs {
 		if in[i], err = parsePropArg(a, atm); err != nil {
 			return usageErr("%v", err)
 		}
@@ -131,18 +135,70 @@ func quantity(s string, d units.Dim) (float64, units.Unit, error) {
 	return v, u, nil
 }
 
+// propName is the property a NAME argument stands for: T in either case, p h s x in either case.
+func propName(name string) string {
+	name = strings.TrimSpace(name)
+	switch name {
+	case "t":
+		return "T"
+	case "P", "X", "H", "S":
+		return strings.ToLower(name)
+	}
+	return name
+}
+
+var propExamples = map[string]string{"p": "150psig", "T": "600F", "h": "1200Btu/lbm", "s": "6.5kJ/(kg K)", "x": "0.9"}
+
+// propPairs reads the NAME=VALUE arguments, however the shell split them: "p = 10bar" and
+// "p= 10 bar" (three or two arguments) are read as p=10bar. A pair starts at a word that is
+// followed by "=", so a value may hold spaces ("T=250 C", "s=6.5 kJ/(kg K)").
+func propPairs(args []string) ([]string, error) {
+	var words []string
+	for _, a := range args {
+		// Split around "=" so that "p=", "=10bar" and "p=10" all become words and "=" signs.
+		for k, part := range strings.Split(a, "=") {
+			if k > 0 {
+				words = append(words, "=")
+			}
+			if part = strings.TrimSpace(part); part != "" {
+				words = append(words, strings.Fields(part)...)
+			}
+		}
+	}
+	var pairs []string
+	for i := 0; i < len(words); {
+		if i+1 < len(words) && words[i+1] != "=" && words[i] != "=" {
+			if _, ok := propDims[propName(words[i])]; ok {
+				return nil, fmt.Errorf("%q: write %s=%s (NAME=VALUE)", words[i]+" "+words[i+1], words[i], words[i+1])
+			}
+		}
+		if i+1 >= len(words) || words[i+1] != "=" || words[i] == "=" {
+			return nil, fmt.Errorf("%q: expected NAME=VALUE, e.g. p=150psig (arguments: %s)", words[i], strings.Join(args, " "))
+		}
+		name := words[i]
+		j := i + 2
+		for j < len(words) && words[j] != "=" && !(j+1 < len(words) && words[j+1] == "=") {
+			j++
+		}
+		if j == i+2 {
+			ex, ok := propExamples[propName(name)]
+			if !ok {
+				ex = "150psig"
+			}
+			return nil, fmt.Errorf("%s= has no value, e.g. %s=%s", name, name, ex)
+		}
+		pairs = append(pairs, name+"="+strings.Join(words[i+2:j], " "))
+		i = j
+	}
+	return pairs, nil
+}
+
 func parsePropArg(arg string, atm float64) (propInput, error) {
 	name, val, ok := strings.Cut(arg, "=")
 	if !ok {
 		return propInput{}, fmt.Errorf("%q: expected NAME=VALUE, e.g. p=150psig", arg)
 	}
-	name = strings.TrimSpace(name)
-	if name == "t" {
-		name = "T"
-	}
-	if name == "P" || name == "X" || name == "H" || name == "S" {
-		name = strings.ToLower(name)
-	}
+	name = propName(name)
 	d, ok := propDims[name]
 	if !ok {
 		return propInput{}, fmt.Errorf("%q: unknown property %q; use p, T, h, s or x", arg, name)

@@ -98,6 +98,33 @@ func TestPropsText(t *testing.T) {
 	}
 }
 
+// TestPropsSpacing: however the shell splits NAME = VALUE, the pair is read as one, and a value
+// may hold spaces. Every row is the state of p=10bar T=200C (python3-iapws: IAPWS97(P=1,
+// T=473.15).h = 2828.2675375980625 kJ/kg).
+func TestPropsSpacing(t *testing.T) {
+	for _, args := range [][]string{
+		{"p=10bar", "T=200C"},
+		{"p", "=", "10bar", "T=200C"},
+		{"p=", "10bar", "T", "=200C"},
+		{"p = 10 bar", "T = 200 C"},
+		{"p", "=", "10", "bar", "T=", "200", "C"},
+		{"P=10bar", "t=200C"},
+	} {
+		var out, errb bytes.Buffer
+		if code := run(append([]string{"props", "--json"}, args...), nil, &out, &errb); code != 0 {
+			t.Errorf("%q: exit %d: %s", args, code, errb.String())
+			continue
+		}
+		var got map[string]any
+		if err := json.Unmarshal(out.Bytes(), &got); err != nil {
+			t.Fatal(err)
+		}
+		if h, _ := got["h"].(float64); math.Abs(h-2828267.5375980625) > 1e-3 || got["p"] != 1e6 {
+			t.Errorf("%q: p %v h %v", args, got["p"], got["h"])
+		}
+	}
+}
+
 // TestPropsErrors: bad input exits 2 with one line that says what is wrong.
 func TestPropsErrors(t *testing.T) {
 	tests := []struct {
@@ -119,6 +146,10 @@ func TestPropsErrors(t *testing.T) {
 		{[]string{"p=700mmHg", "x=0"}, "write 700mmHg(abs) or 700mmHg(vac)"},
 		{[]string{"--atm", "14.2psi", "p=1bar", "x=0"}, "--atm: 14.2psi does not say"},
 		{[]string{"--atm", "1inHg(vac)", "p=1bar", "x=0"}, "absolute pressure, not inHg(vac)"},
+		// Spacing: a name with its value but no "=" is named with the fix.
+		{[]string{"p", "10bar", "T=200C"}, `"p 10bar": write p=10bar (NAME=VALUE)`},
+		{[]string{"p=10bar", "T="}, "T= has no value, e.g. T=600F"},
+		{[]string{"=", "10bar", "T=200C"}, "expected NAME=VALUE"},
 	}
 	for _, tt := range tests {
 		var out, errb bytes.Buffer

@@ -13,6 +13,7 @@ const (
 	CodeStrayBrace   = "HMB105"
 	CodeMissingValue = "HMB106"
 	CodeTooMany      = "HMB107"
+	CodeSplitUnit    = "HMB108"
 )
 
 // Codes documents the parser's diagnostic codes.
@@ -24,4 +25,5 @@ var Codes = []model.CodeInfo{
 	{Code: CodeStrayBrace, Name: "stray-brace", Severity: model.Error, Summary: "} with no block open", Help: "Remove the brace or open the block it was meant to close."},
 	{Code: CodeMissingValue, Name: "missing-value", Severity: model.Error, Summary: "name or keyword alone on its line, with no value after it", Help: "Write the value after the name or keyword, on the same line (e.g. `p 10 bar`)."},
 	{Code: CodeTooMany, Name: "too-many-syntax-errors", Severity: model.Error, Summary: "syntax errors past the first 100, counted in one diagnostic", Help: "Fix the first syntax errors; the rest are counted, not listed, because they usually follow from the first."},
+	{Code: CodeSplitUnit, Name: "unit-in-two-words", Severity: model.Error, Summary: "unit spelling broken by a space (bar g for barg)", Help: "Write the unit as one word: barg or bar(g), psig, kPa(g), inHg(vac) (the quick fix joins it)."},
 }

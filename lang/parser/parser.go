@@ -22,6 +22,7 @@ import (
 	"hmb/lang/source"
 	"hmb/lang/token"
 	"hmb/thermo/model"
+	"hmb/thermo/units"
 )
 
 // Parse parses a calc file. It never fails and never panics: what does not parse is reported in
@@ -651,6 +652,8 @@ func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast
 	case e.at == 0 && piece[0].Kind != token.Ident:
 		t := piece[0]
 		msg = fmt.Sprintf("unexpected %s: a statement starts with stream, expect, a unit kind or a setting", p.describe(t))
+	case e.at < len(piece) && p.splitUnit(piece, e.at):
+		return &ast.Bad{From: int(piece[0].Pos), To: to}
 	case e.at < len(piece):
 		t := piece[e.at]
 		from = int(t.Pos)
@@ -665,6 +668,32 @@ func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast
 	}
 	p.errorf(CodeSyntax, from, max(to, from), "%s", msg)
 	return &ast.Bad{From: int(piece[0].Pos), To: to}
+}
+
+// splitUnit reports a unit spelling broken by a space, "10 bar g" for 10 barg, when the word at
+// the syntax error joins the unit before it into a known spelling; it reports whether it did.
+func (p *parser) splitUnit(piece []token.Token, at int) bool {
+	if at < 2 || piece[at-2].Kind != token.Number {
+		return false
+	}
+	u, w := piece[at-1], piece[at]
+	isWord := func(k token.Kind) bool { return k == token.Ident || k == token.Word }
+	if !isWord(u.Kind) || !isWord(w.Kind) {
+		return false
+	}
+	first, second := p.text(u), p.text(w)
+	for _, joined := range []string{first + second, first + "(" + second + ")"} {
+		if _, err := units.Lookup(joined); err != nil {
+			continue
+		}
+		d := p.errorf(CodeSplitUnit, int(u.Pos), int(w.End), "unit written in two words %q: did you mean %s?",
+			p.str[u.Pos:w.End], joined)
+		if d != nil {
+			d.Fix = joined
+		}
+		return true
+	}
+	return false
 }
 
 func (p *parser) describe(t token.Token) string {

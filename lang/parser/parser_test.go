@@ -120,6 +120,39 @@ func list(ds []model.Diagnostic) string {
 	return b.String()
 }
 
+// TestSplitUnit: a unit spelling broken by a space is named as such, with the joined spelling as
+// its fix, when joining gives a spelling hmb knows; otherwise it is an ordinary syntax error.
+func TestSplitUnit(t *testing.T) {
+	tests := []struct{ src, at, fix string }{
+		{"stream A { p 10 bar g }", "bar g", "barg"},
+		{"stream A { p 10 psi g; T 300 F }", "psi g", "psig"},
+		{"stream A { p 28 inHg vac }", "inHg vac", "inHg(vac)"},
+		{"stream A { p 3 kPa (g) }", "kPa (g)", "kPa(g)"},
+		{"stream A { flow 3 kg /s }", "kg /s", "kg/s"},
+		{"stream A { p 2 bar g ± 0.1 bar }", "bar g", "barg"},
+		{"stream A { p 3 psi x }", "", ""},
+		{"stream A { T 100 C 5 }", "", ""},
+	}
+	for _, tt := range tests {
+		_, diags := parser.Parse("t.hmb", []byte(tt.src))
+		if len(diags) != 1 {
+			t.Errorf("%q: %d diagnostics:%s", tt.src, len(diags), list(diags))
+			continue
+		}
+		d := diags[0]
+		if tt.fix == "" {
+			if d.Code != "HMB103" {
+				t.Errorf("%q: %s %s, want HMB103", tt.src, d.Code, d.Message)
+			}
+			continue
+		}
+		want := "unit written in two words \"" + tt.at + "\": did you mean " + tt.fix + "?"
+		if d.Code != "HMB108" || d.Span != locate(t, tt.src, tt.at) || d.Message != want || d.Fix != tt.fix {
+			t.Errorf("%q: %s [%d,%d) %q fix %q; want HMB108 at %q, %q, fix %q", tt.src, d.Code, d.Span.Start, d.Span.End, d.Message, d.Fix, tt.at, want, tt.fix)
+		}
+	}
+}
+
 // TestRecovery checks that a broken statement costs only itself: the statements after it are
 // parsed in full.
 func TestRecovery(t *testing.T) {
