@@ -12,8 +12,9 @@ import (
 func runPlot(args []string, stdout, stderr io.Writer) error {
 	fset := flag.NewFlagSet("plot", flag.ContinueOnError)
 	fset.SetOutput(io.Discard)
-	kindArg := fset.String("kind", "Ts", "diagram: Ts, hs or ph")
+	kindArg := fset.String("kind", "Ts", "diagram: Ts, hs, ph, or flowsheet (the heat and material balance diagram)")
 	full := fset.Bool("full-dome", false, "span the axes over the whole saturation dome, not just the streams")
+	values := fset.Bool("values", false, "flowsheet: show each stream's flow, p and T under its tag")
 	out := fset.String("o", "", "write the SVG to this file instead of standard output")
 	sys := addSystemFlags(fset)
 	if err := parseFlags(fset, args, stdout); err != nil {
@@ -28,7 +29,7 @@ func runPlot(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	var buf bytes.Buffer
-	if err := report.Plot(&buf, in, report.PlotOptions{Kind: kind, FullDome: *full}); err != nil {
+	if err := report.Plot(&buf, in, report.PlotOptions{Kind: kind, FullDome: *full, Values: *values}); err != nil {
 		return &exitError{code: 1, msg: err.Error()}
 	}
 	if err := emit(*out, buf.Bytes(), stdout); err != nil {

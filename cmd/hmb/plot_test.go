@@ -14,7 +14,7 @@ func TestPlotExamples(t *testing.T) {
 	for _, f := range exampleFiles(t) {
 		_, table, _ := runReportCmd("table", "--format", "csv", f)
 		recs := strings.Split(strings.Split(string(table), "\n\n")[0], "\n")
-		for _, kind := range []string{"Ts", "hs", "ph"} {
+		for _, kind := range []string{"Ts", "hs", "ph", "flowsheet"} {
 			code, out, stderr := runReportCmd("plot", "--kind", kind, f)
 			if code == 2 || len(out) == 0 {
 				t.Fatalf("%s %s: exit %d: %s", f, kind, code, stderr)

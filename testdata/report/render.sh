@@ -2,7 +2,7 @@
 # render.sh regenerates the PNG renders of the example diagrams kept beside this script for
 # review: one PNG per example and diagram kind, named EXAMPLE.KIND.png.
 #
-#   testdata/report/render.sh               # the Ts diagram of every example
+#   testdata/report/render.sh               # the Ts diagram and the flowsheet of every example
 #   KINDS="Ts hs ph" testdata/report/render.sh
 #
 # Needs the Go toolchain and rsvg-convert (Debian package librsvg2-bin). Works from any
@@ -12,7 +12,7 @@ set -eu
 
 here=$(cd "$(dirname "$0")" && pwd)
 root=$(cd "$here/../.." && pwd)
-kinds=${KINDS:-Ts}
+kinds=${KINDS:-Ts flowsheet}
 
 if ! command -v rsvg-convert >/dev/null 2>&1; then
 	echo "render.sh: rsvg-convert not found; install it with: apt-get install -y librsvg2-bin" >&2

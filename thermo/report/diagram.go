@@ -16,12 +16,13 @@ import (
 type Kind uint8
 
 const (
-	TS Kind = iota // temperature over specific entropy
-	HS             // specific enthalpy over specific entropy
-	PH             // pressure (by decades) over specific enthalpy
+	TS        Kind = iota // temperature over specific entropy
+	HS                    // specific enthalpy over specific entropy
+	PH                    // pressure (by decades) over specific enthalpy
+	Flowsheet             // not a property diagram: the heat and material balance diagram
 )
 
-var kindNames = [...]string{TS: "Ts", HS: "hs", PH: "ph"}
+var kindNames = [...]string{TS: "Ts", HS: "hs", PH: "ph", Flowsheet: "flowsheet"}
 
 func (k Kind) String() string {
 	if int(k) < len(kindNames) {
@@ -30,14 +31,14 @@ func (k Kind) String() string {
 	return fmt.Sprintf("Kind(%d)", uint8(k))
 }
 
-// ParseKind reads "Ts", "hs" or "ph" in any letter case.
+// ParseKind reads "Ts", "hs", "ph" or "flowsheet" in any letter case.
 func ParseKind(s string) (Kind, error) {
 	for k, n := range kindNames {
 		if strings.EqualFold(s, n) {
 			return Kind(k), nil
 		}
 	}
-	return 0, fmt.Errorf("unknown diagram kind %q: use Ts, hs or ph", s)
+	return 0, fmt.Errorf("unknown diagram kind %q: use Ts, hs, ph or flowsheet", s)
 }
 
 // PlotOptions choose a diagram. ID prefixes the element ids, so that several diagrams can share
@@ -49,6 +50,8 @@ type PlotOptions struct {
 	// the axes fit what the file draws: the streams, the units' paths between them and the
 	// isentropic ends, so that a low-pressure system fills the plot.
 	FullDome bool
+	// Values adds each stream's flow, pressure and temperature under its tag on the flowsheet.
+	Values bool
 }
 
 // Critical point of water, IAPWS R7-97(2012), Eqs. 2 and 3 (Tc = 647.096 K, pc = 22.064 MPa);
@@ -115,6 +118,9 @@ func PlotString(in *Input, opt PlotOptions) (string, error) {
 	}
 	if int(opt.Kind) >= len(kindNames) {
 		return "", fmt.Errorf("unknown diagram kind %d", opt.Kind)
+	}
+	if opt.Kind == Flowsheet {
+		return flowsheetSVG(in, opt)
 	}
 	d := &diagram{kind: opt.Kind, id: opt.ID, full: opt.FullDome, q: newQuantities(in.Model), m: in.Model, in: in}
 	if d.id == "" {
