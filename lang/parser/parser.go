@@ -6,10 +6,16 @@
 // every other piece of the file is still parsed, so that the language server can check a file
 // while it is being typed. Braces are matched by the driver, which also notices a block left open
 // when the next statement begins.
+//
+// A failure is read through participle's error types, never its message: the position of the
+// token participle could not take, and what the grammar would have taken there, found by offering
+// the production each kind of token in its place (expectedAt). From the same two facts the driver
+// tells two entries run together on one line (a missing ;) and reads both.
 package parser
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"slices"
 	"strconv"
@@ -233,6 +239,10 @@ func (p *parser) parseStmt(i int) int {
 	if len(piece) == 0 { // only illegal characters, already reported
 		return end
 	}
+	if !hasBlock {
+		p.addStmts(piece)
+		return end
+	}
 	var stmt ast.Stmt
 	switch first := piece[0]; {
 	case p.isKeyword(first, "stream"):
@@ -243,10 +253,6 @@ func (p *parser) parseStmt(i int) int {
 		stmt = p.unitDecl(piece)
 	default:
 		stmt = p.setting(piece)
-	}
-	if !hasBlock {
-		p.file.Stmts = append(p.file.Stmts, stmt)
-		return end
 	}
 	b, next := p.block(j, stmt)
 	switch s := stmt.(type) {
@@ -348,7 +354,7 @@ func (p *parser) blockEntries(b *ast.Block, lb int, owner ast.Stmt) int {
 			return i
 		}
 		if piece := p.significant(i, j); len(piece) > 0 {
-			p.entries = append(p.entries, p.entry(piece))
+			p.addEntries(piece)
 		}
 		i = j
 	}
@@ -371,7 +377,7 @@ func (p *parser) unclosed(b *ast.Block, owner ast.Stmt, next int) {
 // Productions. Each returns its node, or an *ast.Bad after reporting the error.
 
 func (p *parser) streamDecl(piece []token.Token) ast.Stmt {
-	g, bad := parsePiece(p, prodStream, streamParser, piece, "stream declaration")
+	g, bad := parseOrReport(p, prodStream, streamParser, piece, "stream declaration")
 	if bad != nil {
 		return bad
 	}
@@ -387,7 +393,7 @@ func (p *parser) streamDecl(piece []token.Token) ast.Stmt {
 }
 
 func (p *parser) unitDecl(piece []token.Token) ast.Stmt {
-	g, bad := parsePiece(p, prodUnit, unitParser, piece, "unit declaration")
+	g, bad := parseOrReport(p, prodUnit, unitParser, piece, "unit declaration")
 	if bad != nil {
 		return bad
 	}
@@ -400,7 +406,7 @@ func (p *parser) setting(piece []token.Token) ast.Stmt {
 	if len(piece) == 1 && piece[0].Kind == token.Ident {
 		return p.missingValue(piece[0])
 	}
-	g, bad := parsePiece(p, prodSetting, settingParser, piece, "statement")
+	g, bad := parseOrReport(p, prodSetting, settingParser, piece, "statement")
 	if bad != nil {
 		return bad
 	}
@@ -415,7 +421,7 @@ func (p *parser) setting(piece []token.Token) ast.Stmt {
 }
 
 func (p *parser) expect(piece []token.Token) ast.Stmt {
-	g, bad := parsePiece(p, prodExpect, expectParser, piece, "expectation")
+	g, bad := parseOrReport(p, prodExpect, expectParser, piece, "expectation")
 	if bad != nil {
 		return bad
 	}
@@ -430,7 +436,7 @@ func (p *parser) entry(piece []token.Token) ast.Entry {
 		return p.missingValue(piece[0])
 	}
 	if len(piece) >= 2 && piece[1].Kind == token.Ident {
-		g, bad := parsePiece(p, prodNames, namesParser, piece, "list of names")
+		g, bad := parseOrReport(p, prodNames, namesParser, piece, "list of names")
 		if bad != nil {
 			return bad
 		}
@@ -441,7 +447,7 @@ func (p *parser) entry(piece []token.Token) ast.Entry {
 		}
 		return n
 	}
-	g, bad := parsePiece(p, prodGiven, givenParser, piece, "entry")
+	g, bad := parseOrReport(p, prodGiven, givenParser, piece, "entry")
 	if bad != nil {
 		return bad
 	}
@@ -550,11 +556,11 @@ func Unquote(raw string) string {
 	return b.String()
 }
 
-// parseErr is a production's failure: the index in the piece of the offending token and what
-// participle expected there.
+// parseErr is a production's failure: the index in the piece of the token participle could not
+// take, and what the grammar would have taken there (see expectedAt).
 type parseErr struct {
 	at     int
-	expect string
+	expect expected
 }
 
 // parsePiece parses a piece with a production. Results are kept per shape of piece: the
@@ -563,7 +569,7 @@ type parseErr struct {
 // shape parse alike, and most lines of a file share a handful of shapes. The tokens handed to
 // participle carry their index in the piece as their offset, which makes a result a template for
 // every piece of its shape.
-func parsePiece[G any](p *parser, prod byte, gp *participle.Parser[G], piece []token.Token, what string) (*G, *ast.Bad) {
+func parsePiece[G any](p *parser, prod byte, gp *participle.Parser[G], piece []token.Token) (*G, *parseErr) {
 	short := len(piece) <= packMax
 	var packed uint64
 	var r any
@@ -592,9 +598,18 @@ func parsePiece[G any](p *parser, prod byte, gp *participle.Parser[G], piece []t
 		}
 	}
 	if e, isErr := r.(*parseErr); isErr {
-		return nil, p.syntaxError(piece, e, what)
+		return nil, e
 	}
 	return r.(*G), nil
+}
+
+// parseOrReport is parsePiece, reporting a failure as a syntax error in what.
+func parseOrReport[G any](p *parser, prod byte, gp *participle.Parser[G], piece []token.Token, what string) (*G, *ast.Bad) {
+	g, e := parsePiece(p, prod, gp, piece)
+	if e != nil {
+		return nil, p.syntaxError(piece, e, what)
+	}
+	return g, nil
 }
 
 // shapeByte is a token's part of a shape: its kind, or a keyword the grammar spells out.
@@ -620,29 +635,121 @@ func shapeCode(c byte) byte {
 	return c + 1
 }
 
+// runParticiple parses a piece with participle. A failure is read through participle's error
+// types: participle.Error's Position gives the index in the piece of the token it could not take
+// (tokens carry their index as their offset); what would have fitted there is found by asking
+// the grammar itself (expectedAt), not by reading participle's message.
 func runParticiple[G any](p *parser, gp *participle.Parser[G], piece []token.Token) any {
-	lt := make([]lexer.Token, len(piece)+1)
-	for k, t := range piece {
-		lt[k] = lexer.Token{Type: tokenType(t.Kind), Value: p.text(t), Pos: lexer.Position{Offset: k}}
-	}
-	lt[len(piece)] = lexer.Token{Type: lexer.EOF, Pos: lexer.Position{Offset: len(piece)}}
-	pl, err := lexer.Upgrade(&pieceLexer{toks: lt})
-	if err != nil {
-		return &parseErr{at: 0, expect: err.Error()}
-	}
-	g, err := gp.ParseFromLexer(pl)
+	g, err := participleParse(gp, p.lexTokens(piece))
 	if err == nil {
 		return g
 	}
 	e := &parseErr{at: len(piece)}
-	if pe, ok := err.(participle.Error); ok {
+	var pe participle.Error
+	if errors.As(err, &pe) {
 		e.at = min(max(pe.Position().Offset, 0), len(piece))
-		msg := pe.Message()
-		if k := strings.Index(msg, "(expected "); k >= 0 {
-			e.expect = strings.TrimSuffix(msg[k+len("(expected "):], ")")
+	}
+	e.expect = expectedAt(gp, p.lexTokens(piece[:e.at]))
+	return e
+}
+
+// lexTokens makes participle's tokens of a piece, each carrying its index in the piece as its
+// offset.
+func (p *parser) lexTokens(piece []token.Token) []lexer.Token {
+	lt := make([]lexer.Token, len(piece))
+	for k, t := range piece {
+		lt[k] = lexer.Token{Type: tokenType(t.Kind), Value: p.text(t), Pos: lexer.Position{Offset: k}}
+	}
+	return lt
+}
+
+// participleParse runs a production over tokens (an EOF is added).
+func participleParse[G any](gp *participle.Parser[G], toks []lexer.Token) (*G, error) {
+	lt := append(toks[:len(toks):len(toks)], lexer.Token{Type: lexer.EOF, Pos: lexer.Position{Offset: len(toks)}})
+	pl, err := lexer.Upgrade(&pieceLexer{toks: lt})
+	if err != nil {
+		return nil, err
+	}
+	return gp.ParseFromLexer(pl)
+}
+
+// expected is a set of what a production takes at a place: token kinds, the keywords the
+// grammar spells out, and the end of the piece.
+type expected uint32
+
+// probes are the candidates expectedAt tries, in the order a message names them.
+var probes = []struct {
+	kind  token.Kind
+	value string // a keyword, or "" for any token of the kind
+	bit   expected
+	word  string
+}{
+	{token.Ident, "", 1 << 0, "a name"},
+	{token.Number, "", 1 << 1, "a number"},
+	{token.Word, "", 1 << 2, "a unit"},
+	{token.String, "", 1 << 3, "a label string"},
+	{token.Comma, "", 1 << 4, "','"},
+	{token.Eq, "", 1 << 5, "="},
+	{token.Lt, "", 1 << 6, "<"},
+	{token.Le, "", 1 << 7, "<="},
+	{token.Gt, "", 1 << 8, ">"},
+	{token.Ge, "", 1 << 9, ">="},
+	{token.PlusMinus, "", 1 << 10, "±"},
+	{token.Ident, "within", 1 << 11, "within"},
+	{token.LBrace, "", 1 << 12, "{"},
+	{token.EOF, "", 1 << 13, "the end of the line"},
+}
+
+const (
+	expectName   = expected(1 << 0)
+	expectUnit   = expected(1 << 2)
+	expectWithin = expected(1 << 11)
+	expectEnd    = expected(1 << 13)
+)
+
+// expectedAt asks the grammar what may follow the tokens before a failure: each candidate token
+// is put after them, and it fits when participle then fails further on, or not at all.
+func expectedAt[G any](gp *participle.Parser[G], before []lexer.Token) expected {
+	var set expected
+	for _, pr := range probes {
+		toks := before
+		if pr.kind != token.EOF {
+			v := pr.value
+			if v == "" {
+				v = "x"
+			}
+			toks = append(before[:len(before):len(before)], lexer.Token{Type: tokenType(pr.kind), Value: v, Pos: lexer.Position{Offset: len(before)}})
+		}
+		_, err := participleParse(gp, toks)
+		var pe participle.Error
+		if err == nil || errors.As(err, &pe) && pe.Position().Offset >= len(before)+1 && pr.kind != token.EOF {
+			set |= pr.bit
 		}
 	}
-	return e
+	return set
+}
+
+// String words the set for a message: "a number", "=, <, <=, >, >=", "{ or the end of the line".
+func (x expected) String() string {
+	var words []string
+	for _, pr := range probes {
+		switch {
+		case x&pr.bit == 0:
+		case pr.bit == expectName && x&expectUnit != 0:
+			// A name where a unit spelling may stand is a unit spelling.
+		case pr.bit == expectWithin && x&expectName != 0 && x&expectUnit == 0:
+			// Where any name fits, within is only one of them.
+		default:
+			words = append(words, pr.word)
+		}
+	}
+	switch len(words) {
+	case 0:
+		return "something else"
+	case 1:
+		return words[0]
+	}
+	return strings.Join(words[:len(words)-1], ", ") + " or " + words[len(words)-1]
 }
 
 func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast.Bad {
@@ -657,14 +764,10 @@ func (p *parser) syntaxError(piece []token.Token, e *parseErr, what string) *ast
 	case e.at < len(piece):
 		t := piece[e.at]
 		from = int(t.Pos)
-		exp := "the end of the line"
-		if e.expect != "" {
-			exp = firstExpected(e.expect)
-		}
-		msg = fmt.Sprintf("unexpected %s in %s: expected %s", p.describe(t), what, exp)
+		msg = fmt.Sprintf("unexpected %s in %s: expected %s", p.describe(t), what, e.expect)
 	default:
 		from = to
-		msg = fmt.Sprintf("%s ends too early: expected %s", what, firstExpected(e.expect))
+		msg = fmt.Sprintf("%s ends too early: expected %s", what, e.expect)
 	}
 	p.errorf(CodeSyntax, from, max(to, from), "%s", msg)
 	return &ast.Bad{From: int(piece[0].Pos), To: to}
@@ -696,27 +799,94 @@ func (p *parser) splitUnit(piece []token.Token, at int) bool {
 	return false
 }
 
+// Two entries, or two statements, run together on one line (a missing ;) are found from the
+// failure of the whole: the piece parsed completely up to the failing token, a name, and what
+// follows from that name parses as entries (statements) of its own. The driver then reports the
+// missing ; with the fix, and parses each part, so that the rest of the line is still checked.
+
+// splitAt returns where a piece that does not parse as one entry (statement) splits into a
+// complete one and a rest that parses as one or more, or 0.
+func (p *parser) splitAt(piece []token.Token, fails func([]token.Token) *parseErr) int {
+	e := fails(piece)
+	if e == nil || e.at <= 0 || e.at >= len(piece)-1 || e.expect&expectEnd == 0 || piece[e.at].Kind != token.Ident {
+		return 0
+	}
+	if rest := piece[e.at:]; fails(rest) == nil || p.splitAt(rest, fails) > 0 {
+		return e.at
+	}
+	return 0
+}
+
+func (p *parser) missingSeparator(t token.Token, what string) {
+	if d := p.errorf(CodeSyntax, int(t.Pos), int(t.End), "missing ; before %s: %s starts a new %s on the same line (separate them with ; or a line break)",
+		p.text(t), p.text(t), what); d != nil {
+		d.Fix = "; " + p.text(t)
+	}
+}
+
+// entryErr is the failure of a piece as one block entry, nil when it parses.
+func (p *parser) entryErr(piece []token.Token) *parseErr {
+	if len(piece) < 2 {
+		return &parseErr{} // a key alone
+	}
+	if piece[1].Kind == token.Ident {
+		_, e := parsePiece(p, prodNames, namesParser, piece)
+		return e
+	}
+	_, e := parsePiece(p, prodGiven, givenParser, piece)
+	return e
+}
+
+// addEntries parses a piece as block entries: one, or several run together on a line.
+func (p *parser) addEntries(piece []token.Token) {
+	if k := p.splitAt(piece, p.entryErr); k > 0 {
+		p.missingSeparator(piece[k], "entry")
+		p.addEntries(piece[:k])
+		p.addEntries(piece[k:])
+		return
+	}
+	p.entries = append(p.entries, p.entry(piece))
+}
+
+// stmtErr is the failure of a piece as one statement without a block, nil when it parses.
+func (p *parser) stmtErr(piece []token.Token) *parseErr {
+	var e *parseErr
+	switch first := piece[0]; {
+	case len(piece) < 2:
+		return &parseErr{}
+	case p.isKeyword(first, "stream"):
+		_, e = parsePiece(p, prodStream, streamParser, piece)
+	case p.isKeyword(first, "expect"):
+		_, e = parsePiece(p, prodExpect, expectParser, piece)
+	default:
+		_, e = parsePiece(p, prodSetting, settingParser, piece)
+	}
+	return e
+}
+
+// addStmts parses a piece as statements without a block: one, or several run together.
+func (p *parser) addStmts(piece []token.Token) {
+	if k := p.splitAt(piece, p.stmtErr); k > 0 {
+		p.missingSeparator(piece[k], "statement")
+		p.addStmts(piece[:k])
+		p.addStmts(piece[k:])
+		return
+	}
+	var stmt ast.Stmt
+	switch first := piece[0]; {
+	case p.isKeyword(first, "stream"):
+		stmt = p.streamDecl(piece)
+	case p.isKeyword(first, "expect"):
+		stmt = p.expect(piece)
+	default:
+		stmt = p.setting(piece)
+	}
+	p.file.Stmts = append(p.file.Stmts, stmt)
+}
+
 func (p *parser) describe(t token.Token) string {
 	if d := t.Kind.Describe(); d != "" {
 		return fmt.Sprintf("%s %q", d, p.text(t))
 	}
 	return strconv.Quote(p.text(t))
 }
-
-// firstExpected words the first item of participle's "expected" sequence in the notation's terms.
-func firstExpected(s string) string {
-	if strings.HasPrefix(s, "(") {
-		if k := strings.Index(s, ")"); k > 0 {
-			return expectedWords.Replace(strings.ReplaceAll(s[1:k], " | ", ", "))
-		}
-	}
-	if k := strings.IndexByte(s, ' '); k > 0 {
-		s = s[:k]
-	}
-	return expectedWords.Replace(strings.TrimSuffix(s, "?"))
-}
-
-var expectedWords = strings.NewReplacer(
-	"<ident>", "a name", "<number>", "a number", "<string>", "a label string", "<word>", "a unit",
-	"<lbrace>", "{", "<comma>", "','", "<plusminus>", "±", "<eq>", "=", "<lt>", "<", "<le>", "<=",
-	"<gt>", ">", "<ge>", ">=", "GQuantity", "a number", "GName", "a name", "GTol", "a tolerance")

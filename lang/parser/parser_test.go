@@ -49,7 +49,7 @@ func TestDiagnostics(t *testing.T) {
 		{"statement starting with a number", "12 x\nstream A",
 			[]want{{"HMB103", "12 x", "unexpected number \"12\": a statement starts with stream, expect, a unit kind or a setting", ""}}},
 		{"extra number in an entry", "stream A {\n  T 100 C 5\n}",
-			[]want{{"HMB103", "C |5", "unexpected number \"5\" in entry: expected the end of the line", ""}}},
+			[]want{{"HMB103", "C |5", "unexpected number \"5\" in entry: expected ±, within or the end of the line", ""}}},
 		{"two tolerances", "stream A { T 300 F ± 2 F ± 3 F }",
 			[]want{{"HMB103", "2 F |± 3 F", "unexpected \"±\" in entry: expected the end of the line", ""}}},
 		{"tolerance without its amount", "stream A { p 3 bar ± }",
@@ -63,7 +63,7 @@ func TestDiagnostics(t *testing.T) {
 		{"two labels on a unit", "valve V \"x\" \"y\" { }",
 			[]want{{"HMB103", "\"y\" {", "unexpected string \"\\\"y\\\"\" in unit declaration: expected {", ""}}},
 		{"expectation without a comparison", "expect S1 x",
-			[]want{{"HMB103", "S1 x|", "expectation ends too early: expected =, <, <=, >, >=", ""}}},
+			[]want{{"HMB103", "S1 x|", "expectation ends too early: expected =, <, <=, > or >=", ""}}},
 		{"expectation with ==", "expect S1 x == 3",
 			[]want{{"HMB103", "x =|= 3", "unexpected \"=\" in expectation: expected a number", ""}}},
 		{"within without an amount", "expect S1 x = 0.9 within",
@@ -76,6 +76,17 @@ func TestDiagnostics(t *testing.T) {
 			[]want{{"HMB105", "bar } |}", "} with no block open", ""}}},
 		{"key without a value in a block", "stream D {\n  p\n  T 100 C\n}",
 			[]want{{"HMB106", "p", "p has no value after it", ""}}},
+		{"missing ; between entries", "stream A { p 5 bar T 100 C }",
+			[]want{{"HMB103", "T", "missing ; before T: T starts a new entry on the same line (separate them with ; or a line break)", ""}}},
+		{"missing ; between three entries", "stream A { flow 2 kg/s p 5 bar T 100 C }",
+			[]want{{"HMB103", "p", "missing ; before p: p starts a new entry on the same line (separate them with ; or a line break)", ""},
+				{"HMB103", "T", "missing ; before T: T starts a new entry on the same line (separate them with ; or a line break)", ""}}},
+		{"missing ; between roles", "valve V { in A out B }",
+			[]want{{"HMB103", "out", "missing ; before out: out starts a new entry on the same line (separate them with ; or a line break)", ""}}},
+		{"missing comma in a list", "mixer M { in A B }",
+			[]want{{"HMB103", "B", "unexpected name \"B\" in list of names: expected ',' or the end of the line", ""}}},
+		{"missing ; between settings", "title \"x\" display SI",
+			[]want{{"HMB103", "display", "missing ; before display: display starts a new statement on the same line (separate them with ; or a line break)", ""}}},
 		{"setting without a value", "title",
 			[]want{{"HMB106", "title", "title has no value after it", ""}}},
 	}
@@ -254,5 +265,23 @@ func TestTooManyErrors(t *testing.T) {
 	}
 	if got := summarise(f); got != "stream A [p]" {
 		t.Errorf("statements %s, want stream A [p]", got)
+	}
+}
+
+// After a missing ; both entries are still read: the quick fix is the separator, and the
+// checker sees every given.
+func TestMissingSeparatorRecovers(t *testing.T) {
+	src := "stream A { p 5 bar T 100 C ± 2 C x 0.5 }"
+	f, diags := parser.Parse("t.hmb", []byte(src))
+	if len(diags) != 2 || diags[0].Fix != "; T" || diags[1].Fix != "; x" {
+		t.Fatalf("diagnostics:%s", list(diags))
+	}
+	b := f.Stmts[0].(*ast.StreamDecl).Block
+	var keys []string
+	for _, e := range b.Entries {
+		keys = append(keys, e.(*ast.Given).Key.Name)
+	}
+	if strings.Join(keys, " ") != "p T x" {
+		t.Errorf("entries %q", keys)
 	}
 }
