@@ -69,7 +69,7 @@ func (s tapStream) Write(ctx context.Context, msg jsonrpc2.Message) (int64, erro
 // sentID waits until the client has written a call of method and returns the id of the first.
 func (c *client) sentID(method string) jsonrpc2.ID {
 	c.t.Helper()
-	deadline := time.Now().Add(10 * time.Second)
+	deadline := time.Now().Add(waitLimit)
 	for time.Now().Before(deadline) {
 		c.mu.Lock()
 		ids := c.sent[method]
@@ -195,7 +195,7 @@ func (c *client) change(uri protocol.DocumentURI, version int32, changes ...map[
 // publish the check's errors alone) and returns it.
 func (c *client) waitDiags(uri protocol.DocumentURI, version int32) []protocol.Diagnostic {
 	c.t.Helper()
-	timeout := time.After(10 * time.Second)
+	timeout := time.After(waitLimit)
 	key := pubKey{uri, version}
 	for {
 		c.mu.Lock()
@@ -225,7 +225,7 @@ func (c *client) waitDiags(uri protocol.DocumentURI, version int32) []protocol.D
 // waitPublished waits for the first publication for uri at version.
 func (c *client) waitPublished(uri protocol.DocumentURI, version int32) []protocol.Diagnostic {
 	c.t.Helper()
-	timeout := time.After(10 * time.Second)
+	timeout := time.After(waitLimit)
 	for {
 		c.mu.Lock()
 		for _, p := range c.diags {
@@ -275,3 +275,7 @@ func withoutCode(ds []protocol.Diagnostic, code string) []protocol.Diagnostic {
 	}
 	return out
 }
+
+// waitLimit bounds every wait of these tests for something the server must do. It only ends a
+// test that would hang; the machine the tests run on may be shared and busy, so it is generous.
+const waitLimit = 2 * time.Minute
