@@ -24,7 +24,8 @@ type fileResult struct {
 	diags   []model.Diagnostic
 	streams []jsonStream
 	units   []jsonUnit
-	table   string // the solved-stream table in the file's units, for text output
+	table   string  // the solved-stream table in the file's units, for text output
+	ambient float64 // K, the surroundings' temperature the entropy generation uses; 0 when there is no model
 }
 
 func (f *fileResult) errors() int {

@@ -75,7 +75,10 @@ type jsonDiag struct {
 }
 
 type jsonFile struct {
-	Path        string       `json:"path"`
+	Path string `json:"path"`
+	// Ambient is the temperature of the surroundings, K, at which heat losses leave (the file's
+	// ambient setting, 298.15 K by default); null when the file could not be read into a model.
+	Ambient     jsonNum      `json:"ambient"`
 	Diagnostics []jsonDiag   `json:"diagnostics"`
 	Streams     []jsonStream `json:"streams"`
 	Units       []jsonUnit   `json:"units"`
@@ -83,7 +86,10 @@ type jsonFile struct {
 
 func toJSONFile(f *fileResult) jsonFile {
 	li := newLineIndex(f.src)
-	jf := jsonFile{Path: f.path, Diagnostics: []jsonDiag{}, Streams: f.streams, Units: f.units}
+	jf := jsonFile{Path: f.path, Ambient: nan, Diagnostics: []jsonDiag{}, Streams: f.streams, Units: f.units}
+	if f.ambient > 0 {
+		jf.Ambient = jsonNum(f.ambient)
+	}
 	if jf.Streams == nil {
 		jf.Streams = []jsonStream{}
 	}

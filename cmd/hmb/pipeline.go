@@ -34,6 +34,9 @@ type jsonUnit struct {
 	Q    jsonNum `json:"Q"`
 	W    jsonNum `json:"W"`
 	Sgen jsonNum `json:"S_gen"`
+	// SgenFluidOnly: a duty crosses the unit's boundary at no stated T_boundary, so S_gen counts
+	// only what happens inside the fluid (see solve.UnitResult.SgenFluidOnly).
+	SgenFluidOnly bool `json:"S_gen_fluid_only,omitempty"`
 }
 
 // checked is one file after the whole check: notation, then the solver.
@@ -65,6 +68,9 @@ func checkModel(ctx context.Context, path string, src []byte, display *units.Sys
 func checkSource(path string, src []byte, display *units.System) *fileResult {
 	c := checkModel(context.Background(), path, src, display)
 	fr := &fileResult{path: path, src: src, diags: c.diags}
+	if c.model != nil {
+		fr.ambient = c.model.AmbientOr()
+	}
 	if c.res == nil {
 		return fr
 	}
@@ -83,7 +89,7 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 	}
 	for i, u := range m.Units {
 		r := c.res.Units[i]
-		fr.units = append(fr.units, jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen)})
+		fr.units = append(fr.units, jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly})
 	}
 	fr.table = streamTable(m, c.res)
 	return fr
@@ -107,6 +113,7 @@ func streamTable(m *model.Model, r *solve.Result) string {
 		head = append(head, c)
 	}
 	head = append(head, "phase")
+	amb := disp.Show(units.Temperature, m.AmbientOr())
 	rows := [][]string{head}
 	for i, s := range m.Streams {
 		sr := r.Streams[i]
@@ -135,6 +142,7 @@ func streamTable(m *model.Model, r *solve.Result) string {
 		}
 	}
 	var b strings.Builder
+	b.WriteString("  ambient " + amb + " (heat losses leave at it)\n")
 	for _, row := range rows {
 		var line strings.Builder
 		for j, c := range row {

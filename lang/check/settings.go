@@ -3,6 +3,7 @@ package check
 import (
 	"fmt"
 	"slices"
+	"strings"
 
 	"hmb/lang/ast"
 	"hmb/thermo/model"
@@ -10,7 +11,7 @@ import (
 )
 
 // Settings lists the top-level settings, for completion and suggestions.
-var Settings = []string{"title", "display", "atmosphere", "elevation", "tolerance"}
+var Settings = []string{"title", "display", "atmosphere", "elevation", "tolerance", "ambient"}
 
 // settings reads the top-level settings first, wherever they stand: gauge pressures anywhere in
 // the file need the site atmosphere.
@@ -27,7 +28,7 @@ func (c *checker) settings() {
 				c.errorf(CodeUnknownSetting, s, "%s needs a block: %s NAME { ... } with its streams", key, key)
 				continue
 			}
-			d := c.errorf(CodeUnknownSetting, s.Key, "unknown setting %s (settings: title, display, atmosphere, elevation, tolerance)", key)
+			d := c.errorf(CodeUnknownSetting, s.Key, "unknown setting %s (settings: %s)", key, strings.Join(Settings, ", "))
 			suggest(d, key, append(slices.Clone(Settings), kindNames()...))
 			continue
 		}
@@ -99,6 +100,19 @@ func (c *checker) setting(s *ast.Setting) {
 			return
 		}
 		c.m.Atm = atm
+	case "ambient":
+		if s.Qty == nil {
+			bad("a temperature: ambient 25 C")
+			return
+		}
+		v, _, ok := c.convert(s.Qty, units.Temperature, key, false)
+		switch {
+		case !ok:
+		case v <= 0:
+			c.errorf(CodeImpossible, s.Qty, "the ambient temperature must be above absolute zero")
+		default:
+			c.m.Ambient = v
+		}
 	case "tolerance":
 		if s.Qty == nil {
 			bad("a relative tolerance: tolerance 0.1 %")

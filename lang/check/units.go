@@ -107,6 +107,13 @@ func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 			spec := k.Port(role)
 			mentioned = append(mentioned, role)
 			if spec == nil {
+				if ps := k.Param(role); ps != nil && len(ps.Words) > 0 {
+					var ok bool
+					if paramSeen, ok = c.option(o, e, ps, u, paramSeen); !ok {
+						complete = false
+					}
+					continue
+				}
 				complete = false
 				if k.Param(role) != nil {
 					c.errorf(CodeEntryForm, e, "%s takes a number with its unit, not names", role)
@@ -230,6 +237,10 @@ func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[a
 		return seen, false
 	}
 	seen = append(seen, seenKey[ast.Node]{name, g})
+	if len(spec.Words) > 0 {
+		c.errorf(CodeEntryForm, g, "%s takes one of %s, not a number", name, strings.Join(spec.Words, ", "))
+		return seen, false
+	}
 	v, un, ok := c.convert(g.Value, spec.Dim, name, spec.Delta)
 	if !ok {
 		return seen, false
@@ -252,6 +263,31 @@ func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[a
 		}
 	}
 	u.Params[name] = c.newGiven(gv.Value, gv.Tol, gv.Unit, gv.Span)
+	return seen, true
+}
+
+// option checks a parameter stated as a word (an exchanger's "arrangement parallel") and stores it.
+func (c *checker) option(o *Object, e *ast.Names, spec *model.ParamSpec, u *model.Unit, seen []seenKey[ast.Node]) ([]seenKey[ast.Node], bool) {
+	name := spec.Name
+	if prev, dup := find(seen, name); dup {
+		d := c.errorf(CodeDuplicateGiven, e, "%s of %s is given twice", name, o.Name)
+		d.Related = related(prev, "first given here")
+		return seen, false
+	}
+	seen = append(seen, seenKey[ast.Node]{name, e})
+	if len(e.Names) != 1 {
+		c.errorf(CodeEntryForm, e, "%s takes one of %s", name, strings.Join(spec.Words, ", "))
+		return seen, false
+	}
+	if !slices.Contains(spec.Words, e.Names[0].Name) {
+		d := c.errorf(CodeEntryForm, e.Names[0], "%s takes one of %s", name, strings.Join(spec.Words, ", "))
+		suggest(d, e.Names[0].Name, spec.Words)
+		return seen, false
+	}
+	if u.Options == nil {
+		u.Options = map[string]*model.Option{}
+	}
+	u.Options[name] = &model.Option{Value: e.Names[0].Name, Span: span(e)}
 	return seen, true
 }
 

@@ -16,6 +16,10 @@ type ParamSpec struct {
 	Dim   units.Dim
 	Delta bool // a difference (pressure drop): converted without offset or atmosphere
 	Doc   string
+	// Words, when set, are the values the parameter takes instead of a number, the default
+	// first (an exchanger's flow arrangement); a file states one as a name: "arrangement
+	// parallel". It is lowered to Unit.Options.
+	Words []string
 }
 
 // ResultSpec describes one result: a value the solver finds for a stream or a unit, which outputs
@@ -140,6 +144,9 @@ var (
 	lossR    = ResultSpec{Name: "heat_loss", Dim: units.Power, Doc: "heat lost to surroundings, as given (zero when not given)"}
 	dutyIn   = ResultSpec{Name: "duty", Dim: units.Power, Doc: "heat added to the fluid"}
 	effIsenR = ResultSpec{Name: "efficiency", Dim: units.Dimensionless, Doc: "isentropic efficiency, given or solved"}
+
+	// tBound is where a duty crosses the boundary, for the entropy generation (see the README).
+	tBound = ParamSpec{Name: "T_boundary", Dim: units.Temperature, Doc: "temperature at which the duty crosses the unit's boundary (heating medium, flue gas, cooling water), for the entropy generation"}
 )
 
 // Kinds is the catalogue of unit kinds, by name.
@@ -152,14 +159,14 @@ var Kinds = map[string]*Kind{
 	"valve": {Name: "valve", Doc: "throttling valve: enthalpy conserved",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{dp}, Results: []ResultSpec{sgen}},
 	"heater": {Name: "heater", Doc: "heat added to one stream",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp}, Results: []ResultSpec{dutyIn, sgen}},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp, tBound}, Results: []ResultSpec{dutyIn, sgen}},
 	"cooler": {Name: "cooler", Doc: "heat removed from one stream",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dp},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dp, tBound},
 		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, sgen}},
 	"boiler": {Name: "boiler", Doc: "steam generator: feedwater heated to steam",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency: duty over fuel input"},
-			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}},
+			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}, tBound},
 		Results: []ResultSpec{dutyIn,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency, duty over fuel input, given or solved"},
 			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input, given or solved"}, sgen}},
@@ -177,7 +184,9 @@ var Kinds = map[string]*Kind{
 			{Role: "cold_in", Inlet: true, Doc: "cold-side inlet"}, {Role: "cold_out", Doc: "cold-side outlet"}},
 		Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat passed from hot to cold side"}, loss,
 			{Name: "dp_hot", Dim: units.Pressure, Delta: true, Doc: "hot-side pressure drop"},
-			{Name: "dp_cold", Dim: units.Pressure, Delta: true, Doc: "cold-side pressure drop"}},
+			{Name: "dp_cold", Dim: units.Pressure, Delta: true, Doc: "cold-side pressure drop"},
+			{Name: "arrangement", Words: []string{"counterflow", "parallel"}, Doc: "flow arrangement: counterflow (the default) or parallel"},
+			{Name: "min_approach", Dim: units.Temperature, Delta: true, Doc: "least temperature difference wanted along the profile: a warning below it"}},
 		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat passed from hot to cold side"}, lossR, sgen}},
 	"flash": {Name: "flash", Doc: "flash tank or separator: feed splits into saturated vapour and saturated liquid at the tank pressure",
 		Ports:  []PortSpec{ins, {Role: "vapor", Doc: "saturated vapour outlet"}, {Role: "liquid", Doc: "saturated liquid outlet"}},
@@ -185,5 +194,6 @@ var Kinds = map[string]*Kind{
 	"desuperheater": {Name: "desuperheater", Doc: "spray water into steam to reach a target outlet state",
 		Ports: []PortSpec{{Role: "steam", Inlet: true, Doc: "superheated steam inlet"},
 			{Role: "water", Inlet: true, Doc: "spray water inlet"}, out},
-		Params: []ParamSpec{loss}, Results: []ResultSpec{lossR, sgen}},
+		Params:  []ParamSpec{loss, {Name: "dp", Dim: units.Pressure, Delta: true, Doc: "pressure drop, steam inlet to outlet"}},
+		Results: []ResultSpec{lossR, sgen}},
 }

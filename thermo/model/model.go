@@ -80,6 +80,29 @@ type Unit struct {
 	Span   Span // the unit's name where it is declared
 	Ports  []Port
 	Params map[string]*Given // by parameter name (see Kind.Params), SI base units
+	// Options holds the parameters stated as a word (ParamSpec.Words), by name; a parameter
+	// not stated takes its first word.
+	Options map[string]*Option
+}
+
+// Option is a unit parameter stated as one of its words: "arrangement parallel".
+type Option struct {
+	Value string
+	Span  Span // the whole entry
+}
+
+// Option returns the word a unit states for a parameter, or the parameter's default (its first
+// word); "" when the kind has no such parameter.
+func (u *Unit) Option(name string) string {
+	if o := u.Options[name]; o != nil {
+		return o.Value
+	}
+	if u.Kind != nil {
+		if p := u.Kind.Param(name); p != nil && len(p.Words) > 0 {
+			return p.Words[0]
+		}
+	}
+	return ""
 }
 
 // Op is the comparison an expectation makes.
@@ -113,10 +136,25 @@ type Model struct {
 	Display   units.System // the unit system results are shown in
 	Atm       float64      // site atmosphere, Pa (gauge pressures are already converted)
 	Tolerance float64      // relative closure tolerance of balances (fraction, e.g. 0.001)
-	Streams   []*Stream
-	Units     []*Unit
-	Expects   []*Expect
+	// Ambient is the temperature of the surroundings, K: heat losses leave at it. Zero means
+	// DefaultAmbient.
+	Ambient float64
+	Streams []*Stream
+	Units   []*Unit
+	Expects []*Expect
 	// Incomplete is set when the notation dropped broken statements; the solver then does not
 	// report under-specification, which would only echo the errors already reported.
 	Incomplete bool
+}
+
+// DefaultAmbient is the temperature of the surroundings when a file states none: 25 C, the usual
+// reference temperature of exergy tables (common practice, no source).
+const DefaultAmbient = 298.15
+
+// AmbientOr is the model's ambient temperature, K, or DefaultAmbient when none is set.
+func (m *Model) AmbientOr() float64 {
+	if m != nil && m.Ambient > 0 {
+		return m.Ambient
+	}
+	return DefaultAmbient
 }

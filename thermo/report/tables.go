@@ -126,7 +126,11 @@ func UnitTable(m *model.Model, r *solve.Result) Table {
 				row = append(row, "")
 				continue
 			}
-			row = append(row, q.cell(spec.Dim, v))
+			cell := q.cell(spec.Dim, v)
+			if c.name == "sgen" && r != nil && i < len(r.Units) && r.Units[i].SgenFluidOnly && !math.IsNaN(v) {
+				cell += FluidOnlyMark
+			}
+			row = append(row, cell)
 		}
 		t.Rows = append(t.Rows, row)
 	}
@@ -145,7 +149,13 @@ func resultDim(name string) units.Dim {
 
 // UnitNotes explains the signs of the unit table, for a footnote.
 const UnitNotes = "Duty is heat added (heater, boiler), removed (cooler) or passed hot to cold side (exchanger); " +
-	"shaft power is produced by a turbine and absorbed by a pump."
+	"shaft power is produced by a turbine and absorbed by a pump. " +
+	"Entropy generation counts heat losses leaving at the ambient temperature and a duty crossing at the unit's T_boundary; " +
+	"marked *, a duty crosses at no stated T_boundary and only what happens inside the fluid is counted."
+
+// FluidOnlyMark follows an entropy generation that counts only what happens inside the fluid
+// (solve.UnitResult.SgenFluidOnly); UnitNotes explains it.
+const FluidOnlyMark = " *"
 
 // Heading writes a column's heading with its unit: "p kPa", "x".
 func (c Column) Heading() string {

@@ -32,7 +32,8 @@ func basis(m *model.Model) string {
 		pu := q.unit(units.Pressure)
 		s += fmt.Sprintf(" (site atmosphere %s %s)", sig(pu.FromSI(q.atm, q.atm), 4), pu.Symbol())
 	}
-	return s
+	tu := q.unit(units.Temperature)
+	return s + fmt.Sprintf("; ambient %s %s", sig(tu.FromSI(m.AmbientOr(), q.atm), 4), tu.Symbol())
 }
 
 // WriteMarkdown writes the stream and unit tables as Markdown, padded so the text reads as a
@@ -133,7 +134,7 @@ func WriteCSV(w io.Writer, in *Input) error {
 			row := make([]string, len(r))
 			for j, c := range r {
 				if c != Unsolved {
-					row[j] = c
+					row[j] = strings.TrimSuffix(c, FluidOnlyMark) // a spreadsheet keeps the number
 				}
 			}
 			cw.Write(row)

@@ -9,7 +9,9 @@ import "hmb/thermo/units"
 //	pressure: p_out = p_in - dp
 //	fuel:     duty = efficiency * fuel      (only when efficiency or fuel is given)
 //
-// Entropy generation as for the heater (heater.go); the furnace lies outside the boundary.
+// Entropy generation as for the heater (heater.go): with T_boundary (the flue gas temperature the
+// heat comes from) S_gen = m (s_out - s_in) - duty / T_boundary; without it the furnace lies
+// outside the boundary and only the fluid's pressure drop counts.
 func init() { ops["boiler"] = unitOp{buildBoiler, finishBoiler} }
 
 func buildBoiler(b *builder, u int) {
@@ -17,7 +19,7 @@ func buildBoiler(b *builder, u int) {
 	q := b.param(u, "duty", true, 0)
 	b.massBalance(u, []int{in}, []int{out})
 	b.energyBalance(u, "", []int{in}, []int{out}, []term{q}, nil)
-	b.pressureDrop(u, in, out, b.param(u, "dp", false, 0), "")
+	b.pressureDrop(u, in, out, b.drop(u, "dp"), "")
 	un := b.m.Units[u]
 	if un.Params["efficiency"] == nil && un.Params["fuel"] == nil {
 		return

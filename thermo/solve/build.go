@@ -126,6 +126,28 @@ func (b *builder) param(u int, name string, variable bool, def float64) term {
 
 func v2t(v int) term { return term{v: v} }
 
+// drop returns a unit's pressure drop parameter (dp, dp_hot, dp_cold) as an unknown: fixed by
+// the file's given when there is one, else by the default "dp = 0", which the matching takes
+// only when nothing else fixes the outlet pressure (EqDefault). So a unit whose inlet and
+// outlet pressures are both given, as a data sheet states them, gets its drop from them; a
+// drop the kind cannot have (a gain) is reported after solving.
+func (b *builder) drop(u int, name string) term {
+	t := b.param(u, name, true, 0)
+	if g := b.m.Units[u].Params[name]; g != nil {
+		return t
+	}
+	v := t.v
+	b.addEq(Equation{
+		Label: name + " of " + b.uname(u) + " taken as zero", Kind: EqDefault, Unit: u, Stream: -1, Param: name,
+		Span: b.m.Units[u].Span, Dim: units.Pressure, LHS: "solved", RHS: "default", Vars: []int{v},
+		eval:   func(x []float64) (float64, float64, error) { return x[v], 0, nil },
+		grad:   func(_ []float64, g []float64) { g[0] = 1 },
+		direct: func([]float64, int) (float64, error) { return 0, nil },
+		floor:  1,
+	})
+	return t
+}
+
 // ports returns the streams of a role, in the order the file lists them.
 func (b *builder) ports(u int, role string) []int {
 	var out []int
@@ -363,7 +385,8 @@ func (b *builder) saturated(u, s int, q float64, label string) {
 			st, err := if97.PX(x[pv], q)
 			return st.H, err
 		},
-		floor: 1,
+		floor:   1,
+		quality: true,
 	})
 }
 
@@ -420,6 +443,7 @@ func build(m *model.Model, f formatter, relTol float64) *builder {
 		b.checkParams(u)
 		ops[m.Units[u].Kind.Name].build(b, u)
 	}
+	b.pressureDefaults()
 	return b
 }
 

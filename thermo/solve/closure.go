@@ -19,6 +19,9 @@ func (s *solveRun) overSpecified() {
 			continue
 		}
 		eq := &sys.Eqs[e]
+		if eq.Kind == EqDefault {
+			continue // something else fixed the unknown: the default does not apply
+		}
 		ready := true
 		for _, v := range eq.Vars {
 			if !s.solved[v] {
@@ -42,6 +45,10 @@ func (s *solveRun) overSpecified() {
 			rel = math.Abs(diff) / mag
 		}
 		ok := rel <= s.relTol || math.Abs(diff) <= eq.floor
+		if eq.quality {
+			rel = math.Abs(diff)
+			ok = rel <= s.relTol
+		}
 		if eq.Given != nil && eq.Given.Tol > 0 {
 			ok = math.Abs(diff) <= eq.Given.Tol
 		}
@@ -87,6 +94,8 @@ func (s *solveRun) overSpecified() {
 		case ok && (len(givens) >= 2 && (eq.Kind == EqMass || eq.Kind == EqEnergy)):
 			s.diag(model.Info, CodeClosure, eq.Span, fmt.Sprintf("%s closes: %s", eq.Label, sides), rel2...)
 		case ok:
+		case eq.Kind == EqState && eq.quality && eq.Unit >= 0:
+			s.outletState(e, lhs, rhs, givens)
 		case eq.Kind == EqGiven:
 			s.diag(model.Error, CodeConflict, eq.Span, fmt.Sprintf("%s conflicts: %s given, but %s follows from the rest%s; the difference is %s (%s)",
 				eq.Label, s.value(eq, rhs), s.value(eq, lhs), byText, s.f.dq(eq.Dim, diff), pct(rel)), rel2...)
@@ -139,4 +148,50 @@ func (s *solveRun) energySides(e int, diff, scale, rel float64) string {
 	}
 	return fmt.Sprintf("the streams and duties differ by %s, %s of the largest enthalpy change across the unit (%s)",
 		s.f.q(units.Power, math.Abs(diff)), pct(rel), s.f.q(units.Power, scale))
+}
+
+// outletState reports a unit's saturation condition that the givens leave unmet: the balances
+// put an outlet in a state the unit cannot deliver (a flash tank's "vapour" wet or superheated
+// when all three flows are metered). lhs is the outlet's solved (extended) quality, rhs the
+// quality the unit's model requires.
+func (s *solveRun) outletState(e int, lhs, rhs float64, givens []int) {
+	sys := s.b.sys
+	eq := &sys.Eqs[e]
+	st := sys.Vars[eq.Vars[0]].Stream
+	name := s.m.Streams[st].Name
+	p := s.x[sys.StreamVar(st, model.P)]
+	state := "a wet mixture of quality " + s.f.frac(lhs)
+	switch {
+	case lhs < 0:
+		state = "subcooled liquid"
+	case lhs > 1:
+		state = "superheated vapour"
+	}
+	if r := s.res.Streams[st]; r.HasState && !twoPhase(r.State) {
+		state += " at " + s.f.q(units.Temperature, r.State.T)
+	}
+	want := "saturated liquid (quality 0)"
+	if rhs == 1 {
+		want = "saturated vapour (quality 1)"
+	}
+	var by []string
+	var rel []model.Related
+	for _, g := range givens {
+		by = append(by, s.givenText(g))
+		rel = append(rel, related(sys.Eqs[g].Span, sys.Eqs[g].Label))
+	}
+	role := ""
+	for _, pt := range s.m.Units[eq.Unit].Ports {
+		if pt.Stream == st {
+			role = pt.Role + " "
+		}
+	}
+	msg := fmt.Sprintf("%s: the balances leave its %soutlet %s as %s at %s, but it delivers %s there", s.b.uname(eq.Unit), role, name, state, s.f.q(units.Pressure, p), want)
+	if share, ok := s.flashShare(eq.Unit); ok {
+		msg += fmt.Sprintf(" (the feed would flash %s %% to vapour at that pressure)", units.Format(100*share, 4))
+	}
+	if len(by) > 0 {
+		msg += "; over-specified by " + andList(by) + ": one of them is wrong or one too many"
+	}
+	s.diag(model.Error, CodeOutletState, eq.Span, msg, rel...)
 }

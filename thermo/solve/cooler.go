@@ -6,8 +6,9 @@ package solve
 //	energy:   m h_in = m h_out + duty
 //	pressure: p_out = p_in - dp
 //
-// Entropy generation as for the heater (heater.go), with the heat leaving at the cooled stream's
-// mean temperature along its inlet isobar.
+// Entropy generation as for the heater (heater.go): with T_boundary (the cooling water or air the
+// heat goes to) S_gen = m (s_out - s_in) + duty / T_boundary; without it only the fluid's own
+// pressure drop counts, the heat taken as leaving at the fluid's temperature.
 func init() { ops["cooler"] = unitOp{buildCooler, finishHeated} }
 
 func buildCooler(b *builder, u int) {
@@ -15,5 +16,5 @@ func buildCooler(b *builder, u int) {
 	q := b.param(u, "duty", true, 0)
 	b.massBalance(u, []int{in}, []int{out})
 	b.energyBalance(u, "", []int{in}, []int{out}, nil, []term{q})
-	b.pressureDrop(u, in, out, b.param(u, "dp", false, 0), "")
+	b.pressureDrop(u, in, out, b.drop(u, "dp"), "")
 }

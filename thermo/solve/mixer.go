@@ -1,30 +1,37 @@
 package solve
 
 import (
+	"fmt"
 	"math"
+	"strings"
 
+	"hmb/thermo/model"
 	"hmb/thermo/units"
 )
 
-// Mixer: adiabatic mixing chamber, open feedwater heater, deaerator. Inlets k mix into one outlet.
+// Mixer: adiabatic mixing chamber, open feedwater heater, deaerator, header. Inlets k mix into
+// one outlet.
 //
 //	mass:     sum_k m_k = m_out
 //	energy:   sum_k m_k h_k = m_out h_out + heat_loss
 //	pressure: p_out = min_k p_k - dp
 //
-// Unequal inlet pressures: the outlet takes the lowest inlet pressure (less dp). Streams at a
-// higher pressure are taken to throttle at their inlet nozzle, which the entropy generation
-// accounts for; this is how a deaerator fed from several extraction pressures is drawn. An inlet
-// pressure the file does not give is not fixed by the mixer unless it is the only unknown of the
-// pressure equation, and then it is taken as the lowest (p_out + dp).
+// Unequal inlet pressures: the outlet takes the lowest inlet pressure less dp. Streams at a
+// higher pressure throttle at their inlet nozzle, which the entropy generation accounts for;
+// this is how a deaerator fed from several extraction pressures is drawn. dp is zero unless the
+// file gives it or the outlet pressure is given too (a header's pressure): then the outlet
+// takes the pressure given and every inlet throttles into it. An inlet below the outlet
+// pressure is an error (HMB514): it cannot flow in. An inlet pressure the file does not give is
+// not fixed by the mixer unless it is the only unknown of the pressure equation, and then it is
+// taken as the lowest (p_out + dp).
 //
-// Entropy generation: S_gen = m_out s_out - sum_k m_k s_k + heat_loss / T0.
+// Entropy generation: S_gen = m_out s_out - sum_k m_k s_k + heat_loss / T_ambient.
 func init() { ops["mixer"] = unitOp{buildMixer, finishMixer} }
 
 func buildMixer(b *builder, u int) {
 	ins, out := b.ports(u, "in"), b.ports(u, "out")
 	loss := b.param(u, "heat_loss", false, 0)
-	dp := b.param(u, "dp", false, 0)
+	dp := b.drop(u, "dp")
 	b.massBalance(u, ins, out)
 	b.energyBalance(u, "", ins, out, nil, []term{loss})
 	pout := b.pv(out[0])
@@ -34,6 +41,7 @@ func buildMixer(b *builder, u int) {
 		pins = append(pins, b.pv(s))
 		vars = append(vars, b.pv(s))
 	}
+	vars = append(vars, dp.v)
 	lowest := func(x []float64) float64 {
 		p := math.Inf(1)
 		for _, v := range pins {
@@ -43,12 +51,15 @@ func buildMixer(b *builder, u int) {
 	}
 	b.unitEq(u, Equation{
 		Label: "pressure of " + b.uname(u), Kind: EqPressure, Dim: units.Pressure, LHS: "outlet", RHS: "lowest inlet less drop", Vars: vars,
-		eval: func(x []float64) (float64, float64, error) { return x[pout], lowest(x) - dp.c, nil },
+		eval: func(x []float64) (float64, float64, error) { return x[pout], lowest(x) - x[dp.v], nil },
 		direct: func(x []float64, v int) (float64, error) {
-			if v == pout {
-				return lowest(x) - dp.c, nil
+			switch v {
+			case pout:
+				return lowest(x) - x[dp.v], nil
+			case dp.v:
+				return lowest(x) - x[pout], nil
 			}
-			return x[pout] + dp.c, nil
+			return x[pout] + x[dp.v], nil
 		},
 		floor: 1,
 	})
@@ -56,10 +67,33 @@ func buildMixer(b *builder, u int) {
 
 func finishMixer(c *unitCalc) {
 	ins, out := c.ports("in"), c.ports("out")
+	c.inletsAbove(ins, out[0], "inlet", "the outlet")
 	loss := c.param("heat_loss", 0)
 	if !c.flows(ins, out, 0, loss) {
 		return
 	}
-	c.res.Sgen = c.entropyFlow(ins, out) + loss/T0
+	c.res.Sgen = c.entropyFlow(ins, out) + c.heatEntropy(loss, c.s.ambient())
 	c.checkSgen()
+}
+
+// inletsAbove reports inlets below the pressure they flow into (the stream ref): a mixer's
+// outlet, a desuperheater's steam. Nothing in such a unit lifts them. role names the inlets
+// ("inlet", "spray water"), into names ref ("the outlet", "the steam").
+func (c *unitCalc) inletsAbove(ins []int, ref int, role, into string) {
+	rr := c.s.res.Streams[ref]
+	if !rr.HasState {
+		return
+	}
+	f := c.s.f
+	p := rr.State.P
+	for _, st := range ins {
+		r := c.s.res.Streams[st]
+		if st == ref || !r.HasState || r.State.P >= p-c.s.relTol*p {
+			continue
+		}
+		c.rose = true
+		c.s.diag(model.Error, CodePressureRise, c.un.Span, fmt.Sprintf("%s: %s %s at %s is below %s %s at %s: it cannot flow in",
+			c.name(), role, c.s.b.sname(st), f.q(units.Pressure, r.State.P), into, c.s.b.sname(ref), f.q(units.Pressure, p)),
+			related(c.s.m.Streams[st].Span, role+" "+c.s.b.sname(st)), related(c.s.m.Streams[ref].Span, strings.TrimPrefix(into, "the ")+" "+c.s.b.sname(ref)))
+	}
 }

@@ -14,7 +14,8 @@ import (
 //	efficiency: efficiency * (h_out - h_in) = h_s - h_in,  h_s = h(p_out, s(p_in, h_in))
 //
 // Entropy generation: S_gen = m (s_out - s_in). An inlet that is not liquid is a warning: a pump
-// fed with vapour cavitates.
+// fed with vapour cavitates. An outlet below the inlet pressure is an error (HMB514): a pump
+// raises the pressure.
 func init() { ops["pump"] = unitOp{buildPump, finishPump} }
 
 func buildPump(b *builder, u int) {
@@ -30,7 +31,9 @@ func finishPump(c *unitCalc) {
 	in, out := c.ports("in"), c.ports("out")
 	c.res.W = c.param("power", nanf)
 	c.res.Efficiency = c.param("efficiency", nanf)
-	c.checkEfficiency(c.res.Efficiency)
+	if !c.pressureFall(in[0], out[0]) {
+		c.checkEfficiency(c.res.Efficiency)
+	}
 	if r := c.s.res.Streams[in[0]]; r.HasState {
 		st := r.State
 		if st.Phase != if97.Liquid && st.Phase != if97.SatLiquid {

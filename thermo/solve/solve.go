@@ -51,9 +51,21 @@ type StreamResult struct {
 // UnitResult holds a unit's duties and balances. Fields that do not apply, or could not be
 // computed, are NaN.
 type UnitResult struct {
-	Q          float64 // duty in the kind's own sense: heat added (heater, boiler), removed (cooler), passed hot to cold (exchanger), W
-	W          float64 // shaft power: produced by a turbine, absorbed by a pump, W
-	Sgen       float64 // entropy generation, W/K (each unit's file states where its boundary lies)
+	Q float64 // duty in the kind's own sense: heat added (heater, boiler), removed (cooler), passed hot to cold (exchanger), W
+	W float64 // shaft power: produced by a turbine, absorbed by a pump, W
+	// Sgen is the entropy generation, W/K: sum (m s) out - sum (m s) in - sum Q/T over the heat
+	// Q crossing into the fluid at temperature T (each unit's file states its boundary). Heat
+	// losses leave at the ambient temperature (Result.Ambient); a duty crosses at the unit's
+	// T_boundary when the file gives one (TBoundary). Without it, SgenFluidOnly is set.
+	Sgen float64
+	// SgenFluidOnly is set when a duty crosses the unit's boundary (heater, cooler, boiler) and
+	// the file gives no T_boundary: Sgen then counts only what happens inside the fluid (its
+	// pressure drop), the heat taken as crossing at the fluid's own temperature, so a cooler
+	// condensing steam without a pressure drop shows zero. Tables, hover and reports say so.
+	SgenFluidOnly bool
+	// TBoundary is the temperature, K, at which the unit's duty crosses its boundary (the flue
+	// gas of a boiler, the cooling water of a cooler), as given by T_boundary; NaN when none.
+	TBoundary  float64
 	Efficiency float64 // isentropic (turbine, pump) or boiler efficiency
 	Fuel       float64 // boiler fuel heat input, W
 	// Flows through the unit: mass in kg/s; energy in W (sum of m h plus heat and work crossing
@@ -65,6 +77,20 @@ type UnitResult struct {
 	// the largest enthalpy change across the unit; see energyBalance), so that it reads the same
 	// whatever h = 0 is taken to be.
 	MassClosure, EnergyClosure float64
+	// Exchangers only (NaN, "" and nil for other kinds): the temperature profile along the
+	// unit, split into zones where a side changes phase (see exchanger.go).
+	//
+	// DTMin is the least hot-minus-cold temperature difference anywhere along the profile, K
+	// (below zero: a temperature cross); DTMinAt says in words where it lies ("at the hot inlet
+	// end", "where the hot side HS1 starts condensing"). LMTD is the zone-weighted log-mean
+	// temperature difference, K: the duty over UA. UA is the sum over the zones of the zone's
+	// duty over its log-mean temperature difference, W/K (each zone's from its end
+	// temperatures). LMTD and UA are NaN when the profile crosses or touches.
+	DTMin   float64
+	DTMinAt string
+	LMTD    float64
+	UA      float64
+	Zones   []Zone
 }
 
 // Result is everything Solve found.
@@ -72,6 +98,9 @@ type Result struct {
 	Streams []StreamResult // same order as Model.Streams
 	Units   []UnitResult   // same order as Model.Units
 	Diags   []model.Diagnostic
+	// Ambient is the temperature of the surroundings the entropy generation was computed with,
+	// K: the file's ambient setting or model.DefaultAmbient.
+	Ambient float64
 	// System and X expose the equations and the solution (NaN where unsolved) for later stages
 	// such as uncertainty propagation.
 	System *System
@@ -91,7 +120,7 @@ func Solve(ctx context.Context, m *model.Model, opt Options) *Result {
 	}
 	ctx, cancel := context.WithTimeout(ctx, opt.Timeout)
 	defer cancel()
-	res := &Result{}
+	res := &Result{Ambient: m.AmbientOr()}
 	if m == nil {
 		return res
 	}
@@ -111,7 +140,7 @@ func Solve(ctx context.Context, m *model.Model, opt Options) *Result {
 	if !(relTol > 0) {
 		relTol = 0.001
 	}
-	s := &solveRun{m: m, res: res, ctx: ctx, opt: opt, relTol: relTol, f: formatter{sys: m.Display, atm: m.Atm}}
+	s := &solveRun{m: m, res: res, ctx: ctx, opt: opt, relTol: relTol, f: formatter{sys: m.Display, atm: m.Atm}, explained: map[int]bool{}}
 	s.run()
 	return res
 }
@@ -142,7 +171,8 @@ func validate(m *model.Model) ([]model.Diagnostic, bool) {
 
 func nanUnit() UnitResult {
 	n := math.NaN()
-	return UnitResult{Q: n, W: n, Sgen: n, Efficiency: n, Fuel: n, MassIn: n, MassOut: n, EnergyIn: n, EnergyOut: n, MassClosure: n, EnergyClosure: n}
+	return UnitResult{Q: n, W: n, Sgen: n, TBoundary: n, Efficiency: n, Fuel: n, MassIn: n, MassOut: n, EnergyIn: n, EnergyOut: n, MassClosure: n, EnergyClosure: n,
+		DTMin: n, LMTD: n, UA: n}
 }
 
 type solveRun struct {
@@ -159,6 +189,9 @@ type solveRun struct {
 	nbr    [][]int // streams sharing a unit with each stream
 	diags  []model.Diagnostic
 	evals  int // equation evaluations, for Work
+	// explained streams run backwards for a reason a unit has reported in its own terms (a
+	// flash tank fed subcooled liquid): negativeFlows does not report them again.
+	explained map[int]bool
 }
 
 func (s *solveRun) run() {
@@ -191,6 +224,7 @@ func (s *solveRun) run() {
 	}
 	s.overSpecified()
 	s.unitResults()
+	s.negativeFlows()
 	s.provenance()
 	s.expectations()
 	diags := append(s.b.diags, s.diags...)
@@ -457,14 +491,11 @@ func (s *solveRun) streamResults() {
 	s.res.Streams = make([]StreamResult, len(s.m.Streams))
 	book := sys.book(s.x)
 	var outside []outsideState
-	for i, st := range s.m.Streams {
+	for i := range s.m.Streams {
 		r := &s.res.Streams[i]
 		r.M = math.NaN()
 		if v := sys.StreamVar(i, model.Flow); s.solved[v] {
 			r.M = s.x[v]
-			if r.M < 0 {
-				s.diag(model.Warning, CodeNegativeFlow, st.Span, fmt.Sprintf("%s: solved flow %s is negative: the stream runs against its stated direction", st.Name, s.f.q(model.Flow.Dim(), r.M)))
-			}
 		}
 		pv, hv := sys.StreamVar(i, model.P), sys.StreamVar(i, model.H)
 		if !s.solved[pv] || !s.solved[hv] {

@@ -243,7 +243,8 @@ func (b *builder) propGiven(i int, p model.Prop, g *model.Given) Equation {
 			}
 			return inv(x[pv])
 		},
-		floor: floor,
+		floor:   floor,
+		quality: p == model.X,
 	}
 }
 

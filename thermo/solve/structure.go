@@ -20,7 +20,7 @@ type structure struct {
 type graph struct {
 	eqStart, eqVar  []int32 // unknowns of equation e: eqVar[eqStart[e]:eqStart[e+1]], as Equation.Vars
 	varStart, varEq []int32 // equations touching unknown v, in index order
-	given, mass     []bool  // equation kinds the analysis asks about
+	given, mass     []bool  // equation kinds the analysis asks about; given: matched first (firstPass)
 }
 
 func (g *graph) vars(e int) []int32 { return g.eqVar[g.eqStart[e]:g.eqStart[e+1]] }
@@ -36,7 +36,7 @@ func newGraph(sys *System) graph {
 	g.eqVar, g.varEq = make([]int32, 0, n), make([]int32, n)
 	for e := range sys.Eqs {
 		eq := &sys.Eqs[e]
-		g.given[e], g.mass[e] = eq.Kind == EqGiven, eq.Kind == EqMass
+		g.given[e], g.mass[e] = firstPass(eq.Kind), eq.Kind == EqMass
 		for _, v := range eq.Vars {
 			g.eqVar = append(g.eqVar, int32(v))
 			g.varStart[v+1]++
@@ -104,6 +104,10 @@ func analyse(ctx context.Context, sys *System) (*structure, error) {
 	}
 	return st, nil
 }
+
+// firstPass reports the equations the matching takes before the units' equations: givens, and
+// the pressure-drop defaults that build kept (see pressureDefaults).
+func firstPass(k EqKind) bool { return k == EqGiven || k == EqDefault }
 
 // order runs Tarjan's algorithm iteratively (chains of 100,000 units would otherwise nest as
 // deep). Tarjan emits a component only after every component it reaches, which is exactly the
@@ -228,7 +232,7 @@ func (st *structure) determining(sys *System, e int) []int {
 			}
 			seenE[f] = true
 			queue = append(queue, f)
-			if st.given[f] {
+			if st.given[f] && sys.Eqs[f].Kind == EqGiven {
 				givens = append(givens, f)
 			}
 		}

@@ -31,6 +31,10 @@ const (
 	EqState                  // equal state or saturation condition
 	EqWork                   // shaft power or isentropic efficiency
 	EqFuel                   // boiler duty = efficiency x fuel
+	// EqDefault is a default of a unit parameter ("dp = 0") that holds only when nothing else
+	// fixes the unknown: the matching takes defaults after every other equation, and a default
+	// left over is dropped, never reported.
+	EqDefault
 )
 
 // Equation is one scalar relation lhs(x) = rhs(x). Its residual is lhs - rhs in SI units of Dim.
@@ -53,6 +57,10 @@ type Equation struct {
 	grad   func(x []float64, g []float64) // d(lhs-rhs)/d(Vars[i]); nil: finite differences
 	direct func(x []float64, v int) (float64, error)
 	floor  float64 // scale below which the residual is not scaled further
+	// quality marks an equation in the (extended) quality: left over, it closes when the two
+	// sides differ by at most the relative tolerance in x itself (relTol of the latent heat in
+	// h), not relative to a quality that may be zero.
+	quality bool
 	// energy, set on energy balances, is the largest term of the balance that does not depend on
 	// the enthalpy datum (see energyBalance); closures of energy balances are judged against it.
 	energy func(x []float64) float64

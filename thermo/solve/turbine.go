@@ -14,6 +14,7 @@ import (
 //	efficiency: h_in - h_out = efficiency * (h_in - h_s),  h_s = h(p_out, s(p_in, h_in))
 //
 // The outlet pressure is not fixed by the turbine: it comes from the file or the unit downstream.
+// An outlet above the inlet pressure is an error (HMB514): a turbine expands.
 // Entropy generation: S_gen = m (s_out - s_in).
 func init() { ops["turbine"] = unitOp{buildTurbine, finishTurbine} }
 
@@ -30,7 +31,9 @@ func finishTurbine(c *unitCalc) {
 	in, out := c.ports("in"), c.ports("out")
 	c.res.W = c.param("power", nanf)
 	c.res.Efficiency = c.param("efficiency", nanf)
-	c.checkEfficiency(c.res.Efficiency)
+	if !c.pressureRise(in[0], out[0], "") {
+		c.checkEfficiency(c.res.Efficiency)
+	}
 	if !c.flows(in, out, 0, c.res.W) {
 		return
 	}

@@ -11,6 +11,7 @@ import "hmb/thermo/units"
 // Unlike the other kinds, a valve's dp is an unknown when not given: a valve exists to drop the
 // pressure, so the outlet pressure (or dp) must come from the file.
 //
+// An outlet above the inlet pressure is an error (HMB514): a valve only drops the pressure.
 // Entropy generation: S_gen = m (s_out - s_in), positive for any real pressure drop.
 func init() { ops["valve"] = unitOp{buildValve, finishValve} }
 
@@ -24,6 +25,7 @@ func buildValve(b *builder, u int) {
 
 func finishValve(c *unitCalc) {
 	in, out := c.ports("in"), c.ports("out")
+	c.pressureRise(in[0], out[0], "")
 	if !c.flows(in, out, 0, 0) {
 		return
 	}

@@ -13,10 +13,6 @@ const pCrit = 22.064e6
 // tCrit is the critical temperature of IAPWS-IF97 (IAPWS R7-97(2012), Eq. 1), K.
 const tCrit = 647.096
 
-// T0 is the ambient (dead-state) temperature at which heat lost to the surroundings leaves a unit:
-// 25 C, the usual reference of exergy tables (common practice, no source).
-const T0 = 298.15
-
 // statePH is the only door to the property library for a stream state.
 func statePH(p, h float64) (if97.State, error) {
 	if !finite(p) || !finite(h) {
