@@ -166,6 +166,8 @@ func (e siteEntry) topLevel(site Site) Site {
 		site.Kinds, site.Dim = SiteSpelling, units.Length
 	case first == "tolerance" && e.afterNumber():
 		site.Kinds, site.Dim = SiteSpelling, units.Dimensionless
+	case first == "ambient" && e.afterNumber():
+		site.Kinds, site.Dim = SiteSpelling, units.Temperature
 	}
 	return site
 }
@@ -218,6 +220,7 @@ var keywordDocs = map[string]string{
 	"atmosphere": "setting: the site atmosphere gauge pressures are measured against",
 	"elevation":  "setting: the site elevation, giving the atmosphere from the standard atmosphere",
 	"tolerance":  "setting: the relative closure tolerance of the balances",
+	"ambient":    "setting: the temperature of the surroundings, at which heat losses leave (25 C when not set)",
 	"within":     "the tolerance of an expectation: expect S1 T = 300 C within 2 C",
 	"fluid":      "the stream's fluid (water, liquid or steam: IAPWS-IF97)",
 }

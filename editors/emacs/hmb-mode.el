@@ -46,7 +46,7 @@
     "desuperheater")
   "Unit kinds: the equipment a block can declare.")
 
-(defconst hmb--settings '("title" "display" "atmosphere" "elevation" "tolerance")
+(defconst hmb--settings '("title" "display" "atmosphere" "elevation" "tolerance" "ambient")
   "Top-level settings.")
 
 (defconst hmb--roles
@@ -55,7 +55,7 @@
 
 (defconst hmb--properties
   '("flow" "p" "T" "h" "s" "x" "v" "fluid" "efficiency" "duty" "power" "heat_loss" "dp" "dp_hot"
-    "dp_cold" "fuel" "sgen")
+    "dp_cold" "fuel" "sgen" "T_boundary" "arrangement" "min_approach")
   "Stream properties, unit parameters and results.")
 
 (defconst hmb--name "\\(?:\\sw\\|\\s_\\)+")

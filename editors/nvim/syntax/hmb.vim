@@ -14,13 +14,13 @@ syn keyword hmbStatement stream nextgroup=hmbStreamDecl skipwhite
 syn match   hmbStreamDecl "\k\+\%(\s*,\s*\k\+\)*" contained contains=hmbComma
 syn keyword hmbStatement expect nextgroup=hmbTarget skipwhite
 syn match   hmbTarget    "\k\+" contained nextgroup=hmbProperty skipwhite
-syn keyword hmbSetting   title atmosphere elevation tolerance
+syn keyword hmbSetting   title atmosphere elevation tolerance ambient
 syn keyword hmbSetting   display nextgroup=hmbSystem skipwhite
 syn keyword hmbSystem    SI US contained
 syn keyword hmbKind      mixer splitter valve heater cooler boiler turbine pump exchanger flash desuperheater nextgroup=hmbUnitDecl skipwhite
 syn match   hmbUnitDecl  "\k\+" contained
 syn keyword hmbRole      in out hot_in hot_out cold_in cold_out vapor vapour liquid steam water
-syn keyword hmbProperty  flow p T h s x v efficiency duty power heat_loss dp dp_hot dp_cold fuel sgen
+syn keyword hmbProperty  flow p T h s x v efficiency duty power heat_loss dp dp_hot dp_cold fuel sgen T_boundary arrangement min_approach
 syn keyword hmbProperty  fluid nextgroup=hmbFluid skipwhite
 syn keyword hmbFluid     water steam contained
 syn keyword hmbOperator  within
