@@ -7,7 +7,8 @@ require (
 	github.com/goccy/go-graphviz v0.2.10
 	go.lsp.dev/jsonrpc2 v0.10.0
 	go.lsp.dev/protocol v0.12.0
-	golang.org/x/image v0.21.0
+	golang.org/x/image v0.25.0
+	gonum.org/v1/gonum v0.17.0
 )
 
 require (
@@ -24,5 +25,5 @@ require (
 	go.uber.org/multierr v1.8.0 // indirect
 	go.uber.org/zap v1.21.0 // indirect
 	golang.org/x/sys v0.0.0-20220319134239-a9b59b0215f8 // indirect
-	golang.org/x/text v0.19.0 // indirect
+	golang.org/x/text v0.23.0 // indirect
 )

@@ -24,8 +24,9 @@ type fileResult struct {
 	diags   []model.Diagnostic
 	streams []jsonStream
 	units   []jsonUnit
-	table   string  // the solved-stream table in the file's units, for text output
-	ambient float64 // K, the surroundings' temperature the entropy generation uses; 0 when there is no model
+	table   string     // the solved-stream table in the file's units, for text output
+	ambient float64    // K, the surroundings' temperature the entropy generation uses; 0 when there is no model
+	recon   *jsonRecon // nil when nothing could be solved
 }
 
 func (f *fileResult) errors() int {

@@ -20,11 +20,11 @@ func TestImportRules(t *testing.T) {
 	forbidden := func(pkg string) []string {
 		switch {
 		case strings.HasPrefix(pkg, "hmb/lang"):
-			return []string{"hmb/thermo/if97", "hmb/thermo/solve", "hmb/thermo/report", "hmb/lsp", "hmb/cmd"}
+			return []string{"hmb/thermo/if97", "hmb/thermo/solve", "hmb/thermo/reconcile", "hmb/thermo/report", "hmb/lsp", "hmb/cmd"}
 		case strings.HasPrefix(pkg, "hmb/thermo/units"):
 			return []string{"hmb/"}
 		case strings.HasPrefix(pkg, "hmb/thermo/model"):
-			return []string{"hmb/lang", "hmb/thermo/if97", "hmb/thermo/solve", "hmb/thermo/report"}
+			return []string{"hmb/lang", "hmb/thermo/if97", "hmb/thermo/solve", "hmb/thermo/reconcile", "hmb/thermo/report"}
 		case strings.HasPrefix(pkg, "hmb/thermo"):
 			return []string{"hmb/lang", "hmb/lsp", "hmb/cmd"}
 		}

@@ -82,11 +82,14 @@ type jsonFile struct {
 	Diagnostics []jsonDiag   `json:"diagnostics"`
 	Streams     []jsonStream `json:"streams"`
 	Units       []jsonUnit   `json:"units"`
+	// Reconciliation is the reconciliation of the file's measurements; null when the file
+	// could not be solved.
+	Reconciliation *jsonRecon `json:"reconciliation"`
 }
 
 func toJSONFile(f *fileResult) jsonFile {
 	li := newLineIndex(f.src)
-	jf := jsonFile{Path: f.path, Ambient: nan, Diagnostics: []jsonDiag{}, Streams: f.streams, Units: f.units}
+	jf := jsonFile{Path: f.path, Ambient: nan, Diagnostics: []jsonDiag{}, Streams: f.streams, Units: f.units, Reconciliation: f.recon}
 	if f.ambient > 0 {
 		jf.Ambient = jsonNum(f.ambient)
 	}

@@ -9,6 +9,8 @@ import (
 	"hmb/lang"
 	"hmb/lang/format"
 	"hmb/thermo/model"
+	"hmb/thermo/reconcile"
+	"hmb/thermo/report"
 	"hmb/thermo/solve"
 	"hmb/thermo/units"
 )
@@ -25,6 +27,18 @@ type jsonStream struct {
 	S     jsonNum `json:"s"`
 	X     jsonNum `json:"x"`
 	Phase string  `json:"phase"`
+	// U holds the 95 % half-widths of the values above, from the file's measurements (0 for a
+	// value that follows from exact givens alone).
+	U jsonStreamU `json:"u"`
+}
+
+type jsonStreamU struct {
+	M jsonNum `json:"m"`
+	P jsonNum `json:"p"`
+	T jsonNum `json:"T"`
+	H jsonNum `json:"h"`
+	S jsonNum `json:"s"`
+	X jsonNum `json:"x"`
 }
 
 // jsonUnit is one unit's balance in SI base units: W and W/K.
@@ -36,7 +50,34 @@ type jsonUnit struct {
 	Sgen jsonNum `json:"S_gen"`
 	// SgenFluidOnly: a duty crosses the unit's boundary at no stated T_boundary, so S_gen counts
 	// only what happens inside the fluid (see solve.UnitResult.SgenFluidOnly).
-	SgenFluidOnly bool `json:"S_gen_fluid_only,omitempty"`
+	SgenFluidOnly bool      `json:"S_gen_fluid_only,omitempty"`
+	U             jsonUnitU `json:"u"` // 95 % half-widths
+}
+
+type jsonUnitU struct {
+	Q    jsonNum `json:"Q"`
+	W    jsonNum `json:"W"`
+	Sgen jsonNum `json:"S_gen"`
+}
+
+// jsonRecon is the reconciliation of a file's measurements, SI base units.
+type jsonRecon struct {
+	Redundancy   int               `json:"redundancy"`
+	Chi2         jsonNum           `json:"chi2"`
+	Chi2Limit    jsonNum           `json:"chi2_limit"` // null when nothing is redundant
+	Passed       bool              `json:"passed"`
+	Measurements []jsonMeasurement `json:"measurements"`
+}
+
+type jsonMeasurement struct {
+	Name        string  `json:"name"`
+	Property    string  `json:"property"`
+	Measured    jsonNum `json:"measured"`
+	Reconciled  jsonNum `json:"reconciled"`
+	UMeasured   jsonNum `json:"u_measured"`
+	UReconciled jsonNum `json:"u_reconciled"`
+	Test        jsonNum `json:"test"` // null when no balance checks the measurement
+	Suspect     bool    `json:"suspect"`
 }
 
 // checked is one file after the whole check: notation, then the solver.
@@ -44,6 +85,7 @@ type checked struct {
 	lang  *lang.Result
 	model *model.Model // nil when nothing could be lowered
 	res   *solve.Result
+	rec   *reconcile.Result
 	diags []model.Diagnostic
 }
 
@@ -58,7 +100,7 @@ func checkModel(ctx context.Context, path string, src []byte, display *units.Sys
 	if display != nil {
 		lr.Model.Display = *display
 	}
-	c.res = solve.Solve(ctx, lr.Model, solve.Options{})
+	c.res, c.rec = reconcile.Solve(ctx, lr.Model, solve.Options{})
 	c.diags = append(c.diags, c.res.Diags...)
 	slices.SortStableFunc(c.diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return c
@@ -85,21 +127,40 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 				js.X = jsonNum(st.X)
 			}
 		}
+		u := func(name string) jsonNum { return jsonNum(c.rec.Stream(i, name)) }
+		js.U = jsonStreamU{M: u("flow"), P: u("p"), T: u("T"), H: u("h"), S: u("s"), X: u("x")}
 		fr.streams = append(fr.streams, js)
 	}
 	for i, u := range m.Units {
 		r := c.res.Units[i]
-		fr.units = append(fr.units, jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly})
+		ru := func(name string) jsonNum { return jsonNum(c.rec.Unit(i, name)) }
+		fr.units = append(fr.units, jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly,
+			U: jsonUnitU{Q: ru("duty"), W: ru("power"), Sgen: ru("sgen")}})
 	}
-	fr.table = streamTable(m, c.res)
+	fr.recon = reconJSON(c.rec)
+	fr.table = streamTable(m, c.res, c.rec)
+	if len(c.rec.Measurements) > 0 {
+		fr.table += "\n" + alignRows(tableRows(report.ReconciliationTable(m, c.rec)))
+	}
 	return fr
+}
+
+func reconJSON(r *reconcile.Result) *jsonRecon {
+	out := &jsonRecon{Redundancy: r.Redundancy, Chi2: jsonNum(r.Chi2), Chi2Limit: jsonNum(r.Chi2Limit), Passed: r.Passed,
+		Measurements: []jsonMeasurement{}}
+	for _, ms := range r.Measurements {
+		out.Measurements = append(out.Measurements, jsonMeasurement{Name: ms.Name, Property: ms.Property,
+			Measured: jsonNum(ms.Measured), Reconciled: jsonNum(ms.Reconciled), UMeasured: jsonNum(ms.UMeasured),
+			UReconciled: jsonNum(ms.UReconciled), Test: jsonNum(ms.Test), Suspect: ms.Suspect})
+	}
+	return out
 }
 
 var nan = jsonNum(math.NaN())
 
 // streamTable is the compact text table of solved streams that ends hmb check's text output,
-// in the model's display units.
-func streamTable(m *model.Model, r *solve.Result) string {
+// in the model's display units; with measurements, every value carries its 95 % ±.
+func streamTable(m *model.Model, r *solve.Result, rec *reconcile.Result) string {
 	if len(m.Streams) == 0 {
 		return ""
 	}
@@ -115,6 +176,7 @@ func streamTable(m *model.Model, r *solve.Result) string {
 	head = append(head, "phase")
 	amb := disp.Show(units.Temperature, m.AmbientOr())
 	rows := [][]string{head}
+	withU := rec != nil && len(rec.Measurements) > 0
 	for i, s := range m.Streams {
 		sr := r.Streams[i]
 		row := []string{s.Name}
@@ -126,7 +188,11 @@ func streamTable(m *model.Model, r *solve.Result) string {
 			case math.IsNaN(v):
 				row = append(row, "-")
 			default:
-				row = append(row, disp.Number(spec.Dim, v))
+				cell := disp.Number(spec.Dim, v)
+				if u := rec.Stream(i, c); withU && u > 0 {
+					cell += " ± " + reconcile.FormatU(disp.Unit(spec.Dim), u)
+				}
+				row = append(row, cell)
 			}
 		}
 		phase := "unsolved"
@@ -135,14 +201,31 @@ func streamTable(m *model.Model, r *solve.Result) string {
 		}
 		rows = append(rows, append(row, phase))
 	}
-	width := make([]int, len(head))
+	return "  ambient " + amb + " (heat losses leave at it)\n" + alignRows(rows)
+}
+
+// tableRows is a report table's headings and rows.
+func tableRows(t report.Table) [][]string {
+	head := make([]string, len(t.Cols))
+	for i, c := range t.Cols {
+		head[i] = c.Heading()
+	}
+	return append([][]string{head}, t.Rows...)
+}
+
+// alignRows writes rows as an indented text table: the first and last columns left-aligned,
+// the numbers between right-aligned.
+func alignRows(rows [][]string) string {
+	if len(rows) == 0 {
+		return ""
+	}
+	width := make([]int, len(rows[0]))
 	for _, row := range rows {
 		for j, c := range row {
 			width[j] = max(width[j], len([]rune(c)))
 		}
 	}
 	var b strings.Builder
-	b.WriteString("  ambient " + amb + " (heat losses leave at it)\n")
 	for _, row := range rows {
 		var line strings.Builder
 		for j, c := range row {
@@ -167,5 +250,5 @@ func formatSource(path string, src []byte) ([]byte, error) { return format.Sourc
 
 // allCodes lists every diagnostic code hmb reports, in code order.
 func allCodes() []model.CodeInfo {
-	return slices.Concat(lang.Codes, solve.Codes)
+	return slices.Concat(lang.Codes, solve.Codes, reconcile.Codes)
 }

@@ -121,6 +121,7 @@ func (c *checker) streamEntry(st *model.Stream, e ast.Entry, seen *[len(StreamKe
 		}
 	}
 	st.Given[prop] = c.newGiven(gv.Value, gv.Tol, gv.Unit, gv.Span)
+	st.Given[prop].Measured = g.Tol != nil // a ± marks a measurement
 }
 
 // plausible rejects values no state can have: below absolute zero, negative flow, a quality

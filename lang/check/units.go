@@ -263,6 +263,7 @@ func (c *checker) param(o *Object, g *ast.Given, u *model.Unit, seen []seenKey[a
 		}
 	}
 	u.Params[name] = c.newGiven(gv.Value, gv.Tol, gv.Unit, gv.Span)
+	u.Params[name].Measured = g.Tol != nil // a ± marks a measurement
 	return seen, true
 }
 

@@ -49,11 +49,30 @@ func (p Prop) Dim() units.Dim {
 }
 
 // Given is one stated value, converted to SI base units.
+//
+// A given written with a ± is a measurement (Measured): its ± is the half-width of the 95 %
+// confidence interval of the measurement's error, normally distributed, so that its standard
+// deviation is Tol/1.96 (Sigma). A percentage is of the value as written. A given without a ± is
+// exact: a design value or a constraint.
 type Given struct {
-	Value float64 // SI base units (absolute pressure, kelvin, fraction)
-	Tol   float64 // stated ± tolerance as an absolute SI difference; 0 when none was given
-	Unit  string  // the spelling the user wrote, for messages
-	Span  Span    // the whole statement that gives the value
+	Value    float64 // SI base units (absolute pressure, kelvin, fraction)
+	Tol      float64 // the stated ± as an absolute SI difference; 0 when none was given
+	Measured bool    // written with a ±: a measurement whose 95 % half-width is Tol
+	Unit     string  // the spelling the user wrote, for messages
+	Span     Span    // the whole statement that gives the value
+}
+
+// Coverage95 is the coverage factor of a 95 % two-sided interval of a normal distribution: the
+// 0.975 quantile of the standard normal distribution, 1.959964 (ISO/IEC Guide 98-3 (GUM),
+// Table G.1, rounded there to 1.960).
+const Coverage95 = 1.96
+
+// Sigma is the standard deviation of a measurement's error, in SI; 0 for an exact given.
+func (g *Given) Sigma() float64 {
+	if g == nil || !g.Measured {
+		return 0
+	}
+	return g.Tol / Coverage95
 }
 
 // Stream is a state point: one fluid at one state with one mass flow.

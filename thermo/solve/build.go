@@ -86,6 +86,9 @@ func (b *builder) param(u int, name string, variable bool, def float64) term {
 	un := b.m.Units[u]
 	g := un.Params[name]
 	spec := un.Kind.Param(name)
+	if g != nil && g.Measured && finite(g.Value) {
+		variable = true // a measurement is an unknown with its reading as an equation: reconcilable
+	}
 	if !variable {
 		if g != nil && finite(g.Value) {
 			return konst(g.Value)

@@ -61,6 +61,9 @@ func (s *solveRun) overSpecified() {
 				ur.EnergyClosure = rel
 			}
 		}
+		if s.isJudged(e) {
+			continue // Options.Adjust judged it (a balance of measurements)
+		}
 		givens := s.st.determining(sys, e)
 		if eq.Kind == EqMass {
 			// Around a closed loop one mass balance is the sum of the others whatever the

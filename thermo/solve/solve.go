@@ -18,6 +18,9 @@ import (
 type Options struct {
 	MaxIter int           // Newton iterations per block; 0 means 50
 	Timeout time.Duration // wall-clock limit of the whole solve; 0 means 5 s
+	// Adjust, when set, runs after the balances are solved and before results are read from
+	// them (see Adjustment): the reconciliation of measurements hooks in here.
+	Adjust Adjust
 }
 
 // ProvKind says where a solved value came from.
@@ -106,6 +109,7 @@ type Result struct {
 	System *System
 	X      []float64
 	Work   Work
+	run    *solveRun // for UnitAt
 }
 
 // Solve finds every stream's state and every unit's duty, and reports what is missing,
@@ -192,6 +196,7 @@ type solveRun struct {
 	// explained streams run backwards for a reason a unit has reported in its own terms (a
 	// flash tank fed subcooled liquid): negativeFlows does not report them again.
 	explained map[int]bool
+	judged    []bool // redundant equations Options.Adjust gave the verdict on
 }
 
 func (s *solveRun) run() {
@@ -214,8 +219,10 @@ func (s *solveRun) run() {
 		s.underSpecified()
 		sys.memo = make([]memoState, len(s.m.Streams))
 		s.solveBlocks()
+		s.adjust()
 	}
 	s.res.X = s.x
+	s.res.run = s
 	s.streamResults()
 	sys.memo = nil
 	s.res.Units = make([]UnitResult, len(s.m.Units))
