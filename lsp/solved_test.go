@@ -56,7 +56,9 @@ const (
 	refS2, refV2               = 7.1781382, 1.6435180
 	refPowerKW, refSgenKWPerK  = 6067.6945, 4.0694617
 	refT2F                     = (372.75592-273.15)*9/5 + 32 // the same state in °F
-	refPowerBtuPerH            = 6067.6945e3 * 3600 / 1055.05585262
+	// Shaft power shows in hp in US units: 1 hp = 550 ft lbf/s = 745.69987158227022 W (NIST SP
+	// 811 (2008) Appendix B.8, from the foot and the pound-force).
+	refPowerHp = 6067.6945e3 / 745.69987158227022
 	solvedTol                  = 1e-4 // the display rounds to 5 significant figures
 	solvedURI                  = protocol.DocumentURI("file:///expansion.hmb")
 	hoverTable, hoverUnitTable = "| | value | from |", "| balance | in | out |"
@@ -234,8 +236,10 @@ func TestSolvedUSDisplay(t *testing.T) {
 	if len(hints) != 2 || !strings.HasPrefix(hints[1].Label, "power ") {
 		t.Fatalf("hints %+v", hints)
 	}
-	// 1 Btu (IT) = 1055.05585262 J (ISO 31-4; the IT calorie definition).
-	near(t, "T1 power (US)", strings.TrimPrefix(hints[1].Label, "power "), refPowerBtuPerH, solvedTol)
+	near(t, "T1 power (US)", strings.TrimPrefix(hints[1].Label, "power "), refPowerHp, solvedTol)
+	if !strings.HasSuffix(hints[1].Label, " hp") {
+		t.Errorf("T1 power (US) = %q, want hp", hints[1].Label)
+	}
 }
 
 // TestDiagnosticsMatchCheck publishes, for every example and broken file of the repository, the

@@ -118,7 +118,7 @@ func quantity(s string, d units.Dim) (float64, units.Unit, error) {
 	if err != nil {
 		return 0, units.Unit{}, err
 	}
-	if u.Dim() != d && !(d == units.Temperature && u.Dim() == units.TemperatureDiff) {
+	if !u.Measures(d) && !(d == units.Temperature && u.Dim() == units.TemperatureDiff) {
 		return 0, units.Unit{}, fmt.Errorf("%s is a unit of %s, not of %s", u.Symbol(), u.Dim(), d)
 	}
 	if !u.Level() {

@@ -43,7 +43,7 @@ func (c *checker) unitIn(q *ast.Quantity, want units.Dim, what string, allowDiff
 		return u, false
 	}
 	got := u.Dim()
-	if got == want || allowDiff && want == units.Temperature && got == units.TemperatureDiff {
+	if u.Measures(want) || allowDiff && want == units.Temperature && got == units.TemperatureDiff {
 		return u, true
 	}
 	if q.Unit == nil {

@@ -51,7 +51,7 @@ func TestModelResult(t *testing.T) {
 		{Subject{StreamSubject, 0}, "v", units.SpecificVolume, true},
 		{Subject{StreamSubject, 0}, "power", 0, false},
 		{Subject{StreamSubject, 1}, "T", 0, false},
-		{Subject{UnitSubject, 0}, "power", units.Power, true},
+		{Subject{UnitSubject, 0}, "power", units.ShaftPower, true},
 		{Subject{UnitSubject, 0}, "sgen", units.EntropyRate, true},
 		{Subject{UnitSubject, 0}, "duty", 0, false},
 		{Subject{UnitSubject, 1}, "sgen", 0, false}, // unknown kind

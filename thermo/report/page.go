@@ -103,7 +103,7 @@ func expectValue(in *Input, ex *model.Expect) string {
 		return Unsolved
 	}
 	q := newQuantities(in.Model)
-	if u, err := units.Lookup(ex.Spelling); err == nil && ex.Spelling != "" && u.Dim() == spec.Dim {
+	if u, err := units.Lookup(ex.Spelling); err == nil && ex.Spelling != "" && u.Measures(spec.Dim) {
 		return units.ShowIn(u, v, q.atm)
 	}
 	return q.show(spec.Dim, v)

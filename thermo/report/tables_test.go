@@ -44,8 +44,9 @@ func TestStreamTable(t *testing.T) {
 
 // TestUnitTable: the valve generates m (s_B - s_A) = 2 (7.655671765571876 - 6.926622739684809)
 // = 1.458098 kW/K; the turbine delivers m (h_B - h_C) = 2 (2943.2221652336634 - 2529.900779622026)
-// = 826.64 kW (python3-iapws values as above). In US units 1 kW = 3412.14 Btu/h (1 Btu_IT =
-// 1055.05585262 J, NIST SP 811 (2008) Appendix B.8).
+// = 826.64 kW (python3-iapws values as above). In US units entropy generation is in Btu/(h R)
+// (1 Btu_IT = 1055.05585262 J, NIST SP 811 (2008) Appendix B.8) and shaft power in hp
+// (550 ft lbf/s = 745.69987158227022 W, the same appendix).
 func TestUnitTable(t *testing.T) {
 	for _, tt := range []struct {
 		sys  units.System
@@ -53,7 +54,7 @@ func TestUnitTable(t *testing.T) {
 	}{
 		{units.SI, [][]string{{"V1", "valve", "valve", "", "", "1.4581"}, {"T1", "turbine", "turbine", "", "826.64", "0.64793"}}},
 		{units.US, [][]string{{"V1", "valve", "valve", "", "", sig(1458.098052*3600/1055.05585262*5/9, 5)},
-			{"T1", "turbine", "turbine", "", sig(826642.77*3600/1055.05585262, 5), sig(2*(7979.6349156572335-7655.671765571876)*3600/1055.05585262*5/9, 5)}}},
+			{"T1", "turbine", "turbine", "", sig(826642.77/745.69987158227022, 5), sig(2*(7979.6349156572335-7655.671765571876)*3600/1055.05585262*5/9, 5)}}},
 	} {
 		in := testInput(t, tt.sys)
 		tab := UnitTable(in.Model, in.Result)

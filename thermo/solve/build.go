@@ -101,7 +101,7 @@ func (b *builder) param(u int, name string, variable bool, def float64) term {
 	}
 	typ := 1.0
 	switch dim {
-	case units.Power:
+	case units.Power, units.ShaftPower:
 		typ = 1e6
 	case units.Pressure:
 		typ = 1e5

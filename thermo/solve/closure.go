@@ -137,17 +137,17 @@ func (s *solveRun) energySides(e int, diff, scale, rel float64) string {
 	sys.gradient(e, s.x, g)
 	for k, v := range eq.Vars {
 		vr := &sys.Vars[v]
-		if vr.Unit != eq.Unit || vr.Dim != units.Power || !s.solved[v] || !(math.Abs(g[k]) > 0.5) {
+		if vr.Unit != eq.Unit || vr.Dim.Measure() != units.Power || !s.solved[v] || !(math.Abs(g[k]) > 0.5) {
 			continue
 		}
 		// The value of this term that would close the balance, the rest held.
 		implied := s.x[v] - diff/g[k]
 		name := vr.Param
-		stated := s.f.q(units.Power, s.x[v]) + " (" + s.source(v) + ")"
+		stated := s.f.q(vr.Dim, s.x[v]) + " (" + s.source(v) + ")"
 		if gv := s.m.Units[eq.Unit].Params[name]; gv != nil && finite(gv.Value) && gv.Value == s.x[v] {
-			stated = s.f.written(units.Power, gv.Value, gv.Unit) + " given"
+			stated = s.f.written(vr.Dim, gv.Value, gv.Unit) + " given"
 		}
-		return fmt.Sprintf("%s %s, the stream states imply %s (%s)", name, stated, s.f.q(units.Power, implied), pct(rel))
+		return fmt.Sprintf("%s %s, the stream states imply %s (%s)", name, stated, s.f.q(vr.Dim, implied), pct(rel))
 	}
 	return fmt.Sprintf("the streams and duties differ by %s, %s of the largest enthalpy change across the unit (%s)",
 		s.f.q(units.Power, math.Abs(diff)), pct(rel), s.f.q(units.Power, scale))

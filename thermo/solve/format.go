@@ -39,7 +39,7 @@ func pct(rel float64) string {
 // unit of d, else the display unit.
 func (f formatter) unitFor(d units.Dim, spelling string) units.Unit {
 	if spelling != "" {
-		if u, err := units.Lookup(spelling); err == nil && u.Dim() == d {
+		if u, err := units.Lookup(spelling); err == nil && u.Measures(d) {
 			return u
 		}
 	}

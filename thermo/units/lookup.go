@@ -86,7 +86,7 @@ func Lookup(spelling string) (Unit, error) {
 func Spellings(d Dim) []string {
 	var out []string
 	for _, u := range defs {
-		if u.dim != d {
+		if u.dim != d.Measure() {
 			continue
 		}
 		if u.sym != "" {
@@ -103,7 +103,7 @@ func Spellings(d Dim) []string {
 func Symbols(d Dim) []Unit {
 	var out []Unit
 	for i, u := range defs {
-		if u.dim == d && u.sym != "" {
+		if u.dim == d.Measure() && u.sym != "" {
 			out = append(out, Unit{uint8(i)})
 		}
 	}

@@ -122,7 +122,7 @@ func Trim(v float64) string {
 // the bare number for a fraction): the unit hmb computes in.
 func Base(d Dim) Unit {
 	for i, df := range defs {
-		if df.dim == d && df.scale == 1 && df.offset == 0 && df.reading == Absolute {
+		if df.dim == d.Measure() && df.scale == 1 && df.offset == 0 && df.reading == Absolute {
 			return Unit{uint8(i)}
 		}
 	}

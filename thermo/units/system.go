@@ -43,6 +43,7 @@ var defaults = [2][numDims]string{
 		Length:          "m",
 		Velocity:        "m/s",
 		EntropyRate:     "kW/K",
+		ShaftPower:      "kW",
 	},
 	US: {
 		Dimensionless:   "",
@@ -58,6 +59,7 @@ var defaults = [2][numDims]string{
 		Length:          "ft",
 		Velocity:        "ft/s",
 		EntropyRate:     "Btu/(h R)",
+		ShaftPower:      "hp", // work in horsepower, heat in Btu/h: US trade usage
 	},
 }
 

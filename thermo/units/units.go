@@ -24,6 +24,9 @@ const (
 	Length
 	Velocity
 	EntropyRate // entropy generated per unit time, W/K
+	// ShaftPower is power crossing as work (a turbine's output, a pump's input): measured in the
+	// units of Power, but shown in kW or hp where a heat duty shows in kW or Btu/h.
+	ShaftPower
 
 	numDims = iota
 )
@@ -42,6 +45,7 @@ var dimNames = [numDims]string{
 	Length:          "length",
 	Velocity:        "speed",
 	EntropyRate:     "rate of entropy generation",
+	ShaftPower:      "shaft power",
 }
 
 // Dims lists every dimension, in the order of the constants.
@@ -52,6 +56,18 @@ func Dims() []Dim {
 	}
 	return out
 }
+
+// Measure is the dimension whose units measure d: Power for ShaftPower, d itself otherwise.
+func (d Dim) Measure() Dim {
+	if d == ShaftPower {
+		return Power
+	}
+	return d
+}
+
+// Measures reports whether u is a unit of a quantity of dimension d (hp and Btu/h both measure
+// a shaft power).
+func (u Unit) Measures(d Dim) bool { return u.Dim() == d.Measure() }
 
 // String names the dimension in the words a diagnostic uses ("expected pressure, got ...").
 func (d Dim) String() string {

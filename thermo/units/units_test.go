@@ -286,7 +286,7 @@ func TestRoundTripEverySpelling(t *testing.T) {
 		for _, s := range sp {
 			total++
 			u := mustLookup(t, s)
-			if u.Dim() != d {
+			if !u.Measures(d) {
 				t.Errorf("%q: dim %v, want %v", s, u.Dim(), d)
 			}
 			if back := mustLookup(t, u.Symbol()); back != u {
@@ -403,13 +403,14 @@ func TestSystem(t *testing.T) {
 		}
 	}
 	want := map[System][numDims]string{
-		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s", "kW/K"},
-		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s", "Btu/(h R)"},
+		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s", "kW/K", "kW"},
+		// Heat in Btu/h, work in hp: US trade usage (common practice, no source).
+		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s", "Btu/(h R)", "hp"},
 	}
 	for sys, syms := range want {
 		for d := Dim(0); d < numDims; d++ {
 			u := sys.Default(d)
-			if u.Symbol() != syms[d] || u.Dim() != d || u.Gauge() {
+			if u.Symbol() != syms[d] || !u.Measures(d) || u.Gauge() {
 				t.Errorf("%v.Default(%v) = %q (%v, gauge %v), want %q", sys, d, u.Symbol(), u.Dim(), u.Gauge(), syms[d])
 			}
 		}
@@ -495,5 +496,24 @@ func TestSymbols(t *testing.T) {
 	}
 	if n := len(Symbols(Dimensionless)); n != 2 {
 		t.Errorf("Symbols(Dimensionless) has %d units, want %% and frac", n)
+	}
+}
+
+// Shaft power is measured in the units of power and shown in its own: kW, or hp in US units.
+func TestShaftPower(t *testing.T) {
+	if ShaftPower.Measure() != Power || Power.Measure() != Power || Pressure.Measure() != Pressure {
+		t.Errorf("Measure: %v %v %v", ShaftPower.Measure(), Power.Measure(), Pressure.Measure())
+	}
+	for _, s := range []string{"hp", "kW", "MW", "Btu/h", "kJ/h"} {
+		if u := mustLookup(t, s); !u.Measures(ShaftPower) || !u.Measures(Power) || u.Measures(MassFlow) {
+			t.Errorf("%s does not measure power and shaft power alone", s)
+		}
+	}
+	// 1 hp = 745.699 872 W (NIST SP 811 (2008) App. B.8, horsepower (550 ft lbf/s), from memory).
+	if got := US.Default(ShaftPower).FromSI(745.69987, 0); math.Abs(got-1) > 1e-8 {
+		t.Errorf("745.69987 W = %g hp", got)
+	}
+	if !slices.Equal(Spellings(ShaftPower), Spellings(Power)) || len(Symbols(ShaftPower)) != len(Symbols(Power)) {
+		t.Error("shaft power has spellings of its own")
 	}
 }
