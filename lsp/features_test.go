@@ -283,8 +283,7 @@ func TestDebounceSolvesOnce(t *testing.T) {
 }
 
 // TestLoneCR serves text whose lines end in a lone "\r", as the protocol counts lines: every
-// position the editor gets is on the line it shows. (The notation reads a lone "\r" as a blank,
-// not as the end of an entry, so the file puts statements that end in a brace on those lines.)
+// position the editor gets is on the line it shows, and the notation ends a line there too.
 func TestLoneCR(t *testing.T) {
 	c := startServer(t, newTestOptions(0))
 	src := "stream S1 { p 1 barr }\rstream S2 { p 1 °C }\r\n\rvalve V1 { in S1; out S2 }\r"

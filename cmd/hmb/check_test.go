@@ -400,3 +400,40 @@ func readmeSection(t *testing.T, name, want string) {
 		t.Errorf("README.md's %s table is out of date: go test ./cmd/hmb -run %s -update", name, t.Name())
 	}
 }
+
+// TestLoneCR: a lone "\r" ends a line for hmb check as it does for editors and the language
+// server, so a comment does not swallow the statement after it, and positions count that line.
+func TestLoneCR(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "cr.hmb")
+	if err := os.WriteFile(path, []byte("# note\rstream B { p 5 barr }\r"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var out, errb bytes.Buffer
+	if code := run([]string{"check", "--format", "json", path}, nil, &out, &errb); code != 1 {
+		t.Fatalf("exit %d, want 1 (the misspelt unit); stderr %s", code, errb.String())
+	}
+	var doc struct {
+		Files []struct {
+			Diagnostics []struct {
+				Code  string
+				Range struct{ Start struct{ Line, Column int } }
+			}
+		}
+	}
+	if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, d := range doc.Files[0].Diagnostics {
+		if d.Code == "HMB301" {
+			found = true
+			if d.Range.Start.Line != 2 || d.Range.Start.Column != 16 {
+				t.Errorf("HMB301 at %d:%d, want 2:16", d.Range.Start.Line, d.Range.Start.Column)
+			}
+		}
+	}
+	if !found {
+		t.Errorf("no HMB301 for the unit after the lone CR:\n%s", out.String())
+	}
+}

@@ -5,6 +5,7 @@ import (
 	"context"
 	"flag"
 	"fmt"
+	"hmb/lang/source"
 	"io"
 	"os"
 
@@ -56,7 +57,9 @@ func loadReportInput(fset *flag.FlagSet, sys systemFlags, stderr io.Writer) (*re
 		writeText(stderr, &fileResult{path: path, src: src, diags: c.diags})
 		return nil, &exitError{code: 1, msg: fmt.Sprintf("%s could not be read into a model", path)}
 	}
-	return &report.Input{Path: path, Src: src, Model: c.model, Result: c.res, Diags: c.diags}, nil
+	lines := source.New(path, src)
+	where := func(off int) string { return lines.Position(off).String() }
+	return &report.Input{Path: path, Src: src, Model: c.model, Result: c.res, Diags: c.diags, Where: where}, nil
 }
 
 // emit writes output to stdout, or to path atomically.

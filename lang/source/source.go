@@ -1,12 +1,15 @@
 // Package source maps byte offsets in a calc file to lines and columns and back. It is the one
-// place positions are converted: the CLI prints 1-based line:column (columns in bytes), the
-// language server speaks 0-based lines with UTF-16 columns. Inside hmb every position is a byte
-// offset.
+// line index of hmb: the parser builds it, and the command line, the report and the language
+// server convert through it. A line ends at "\n", "\r\n" or a lone "\r", as editors and the
+// language server protocol count lines. Inside hmb every position is a byte offset; columns are
+// counted only at the edges, each output in its own convention (README, "Positions"): code points
+// for what people read (the command line, JSON, SARIF, reports, goldens), UTF-16 code units for
+// the language server.
 package source
 
 import (
-	"bytes"
 	"sort"
+	"strconv"
 	"unicode/utf16"
 	"unicode/utf8"
 )
@@ -20,23 +23,30 @@ type File struct {
 
 // New indexes src. The File keeps src; the caller must not modify it afterwards.
 func New(name string, src []byte) *File {
-	lines := make([]int, 1, bytes.Count(src, nl)+1)
-	for i := 0; ; {
-		k := bytes.IndexByte(src[i:], '\n')
-		if k < 0 {
-			break
-		}
-		i += k + 1
-		lines = append(lines, i)
-	}
-	return &File{Name: name, Src: src, lines: lines}
+	return &File{Name: name, Src: src, lines: LineStarts(src)}
 }
 
-var nl = []byte{'\n'}
+// LineStarts returns the offset of each line's start: 0, then the offset just after each "\n",
+// "\r\n" and lone "\r".
+func LineStarts(src []byte) []int {
+	lines := []int{0}
+	for i := 0; i < len(src); i++ {
+		switch src[i] {
+		case '\r':
+			if i+1 < len(src) && src[i+1] == '\n' {
+				i++
+			}
+			lines = append(lines, i+1)
+		case '\n':
+			lines = append(lines, i+1)
+		}
+	}
+	return lines
+}
 
 // NewLines is New for a caller that has found the line starts already (the parser, whose
-// scanner makes a token of every "\n"): lines[0] is 0, then the offset just after each "\n" of
-// src, in order. The File keeps both.
+// scanner makes a token of every line break): lines as LineStarts returns them. The File keeps
+// both.
 func NewLines(name string, src []byte, lines []int) *File {
 	return &File{Name: name, Src: src, lines: lines}
 }
@@ -65,8 +75,9 @@ type Pos struct {
 	UTF16  int // UTF-16 code units, as the language server protocol counts by default
 }
 
-// String is the 1-based "line:col" with the column in bytes, the form of compiler messages.
-func (p Pos) String() string { return itoa(p.Line+1) + ":" + itoa(p.Col+1) }
+// String is the 1-based "line:col" with the column in code points, as the command line prints
+// positions.
+func (p Pos) String() string { return strconv.Itoa(p.Line+1) + ":" + strconv.Itoa(p.Rune+1) }
 
 // Position resolves a byte offset, clamped to [0, len(Src)].
 func (f *File) Position(off int) Pos {
@@ -112,16 +123,28 @@ func (f *File) OffsetUTF16(line, col int) int {
 	return i
 }
 
-// lineEnd is the offset of the line's terminating newline (or of a "\r\n"), or the file end.
+// lineEnd is the offset of the line's terminator ("\n", "\r\n" or "\r"), or the file end.
 func (f *File) lineEnd(line int) int {
-	end := len(f.Src)
-	if line+1 < len(f.lines) {
-		end = f.lines[line+1] - 1
+	if line+1 >= len(f.lines) {
+		return len(f.Src)
 	}
-	if end > f.lines[line] && f.Src[end-1] == '\r' {
+	end := f.lines[line+1] - 1 // the "\n" or lone "\r"
+	if end > f.lines[line] && f.Src[end] == '\n' && f.Src[end-1] == '\r' {
 		end--
 	}
 	return end
+}
+
+// LineEnd is the offset where the 0-based line ends, before its terminator (the file's end for
+// the last line, or a line past it).
+func (f *File) LineEnd(line int) int {
+	if line < 0 {
+		line = 0
+	}
+	if line >= len(f.lines) {
+		return len(f.Src)
+	}
+	return f.lineEnd(line)
 }
 
 // Line returns the text of the 0-based line without its line terminator.
@@ -130,26 +153,4 @@ func (f *File) Line(line int) []byte {
 		return nil
 	}
 	return f.Src[f.lines[line]:f.lineEnd(line)]
-}
-
-func itoa(n int) string {
-	if n == 0 {
-		return "0"
-	}
-	var b [20]byte
-	i := len(b)
-	neg := n < 0
-	if neg {
-		n = -n
-	}
-	for n > 0 {
-		i--
-		b[i] = byte('0' + n%10)
-		n /= 10
-	}
-	if neg {
-		i--
-		b[i] = '-'
-	}
-	return string(b[i:])
 }

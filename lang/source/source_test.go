@@ -48,7 +48,31 @@ func TestPosition(t *testing.T) {
 	if got := string(f.Line(1)); got != "T 540 °C 𝄞x" {
 		t.Errorf("Line(1) = %q", got)
 	}
-	if got := f.Position(11).String(); got != "2:9" {
-		t.Errorf("Position(11).String() = %q, want 2:9", got)
+	if got := f.Position(11).String(); got != "2:8" {
+		t.Errorf("Position(11).String() = %q, want 2:8 (1-based, code points)", got)
+	}
+}
+
+// Lines end at "\n", "\r\n" and a lone "\r", as the language server protocol counts them
+// (LSP 3.17, "Text Documents"), for the command line as for the server.
+func TestLineEnds(t *testing.T) {
+	src := "a\nbb\r\nccc\rdddd\r\r\n"
+	f := New("t", []byte(src))
+	want := []string{"a", "bb", "ccc", "dddd", "", ""}
+	if f.LineCount() != len(want) {
+		t.Fatalf("%d lines, want %d", f.LineCount(), len(want))
+	}
+	for i, w := range want {
+		if got := string(f.Line(i)); got != w {
+			t.Errorf("Line(%d) = %q, want %q", i, got, w)
+		}
+	}
+	for _, tt := range []struct{ off, line, col int }{{2, 1, 0}, {6, 2, 0}, {9, 2, 3}, {10, 3, 0}, {15, 4, 0}, {17, 5, 0}} {
+		if p := f.Position(tt.off); p.Line != tt.line || p.Rune != tt.col {
+			t.Errorf("Position(%d) = %d:%d, want %d:%d", tt.off, p.Line, p.Rune, tt.line, tt.col)
+		}
+	}
+	if got := f.LineEnd(3); got != 14 {
+		t.Errorf("LineEnd(3) = %d, want 14 (before the lone \\r)", got)
 	}
 }

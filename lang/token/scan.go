@@ -47,19 +47,22 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 			i++
 			toks = append(toks, newToken(Newline, start, i))
 			continue
+		case c == '\r': // "\r\n", or a lone "\r": a line ends there, as editors count lines
+			i++
+			if i < len(src) && src[i] == '\n' {
+				i++
+			}
+			toks = append(toks, newToken(Newline, start, i))
+			continue
 		case c == ';':
 			i++
 			toks = append(toks, newToken(Semi, start, i))
 			continue
 		case c == '#':
-			for i < len(src) && src[i] != '\n' {
+			for i < len(src) && src[i] != '\n' && src[i] != '\r' {
 				i++
 			}
-			end := i
-			if end > start && src[end-1] == '\r' {
-				end--
-			}
-			toks = append(toks, newToken(Comment, start, end))
+			toks = append(toks, newToken(Comment, start, i))
 			continue
 		case c == '"':
 			end, ok := scanString(src, i)
@@ -150,7 +153,7 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 
 func isDigit(c byte) bool { return '0' <= c && c <= '9' }
 
-func isBlank(c byte) bool { return c == ' ' || c == '\t' || c == '\r' || c == '\f' || c == '\v' }
+func isBlank(c byte) bool { return c == ' ' || c == '\t' || c == '\f' || c == '\v' }
 
 // Classes of ASCII bytes, for the scanner's fast paths.
 const (
@@ -220,15 +223,12 @@ func scanString(src []byte, i int) (int, bool) {
 	for i++; i < len(src); i++ {
 		switch src[i] {
 		case '\\':
-			if i+1 < len(src) && src[i+1] != '\n' {
+			if i+1 < len(src) && src[i+1] != '\n' && src[i+1] != '\r' {
 				i++
 			}
 		case '"':
 			return i + 1, true
-		case '\n':
-			if src[i-1] == '\r' {
-				return i - 1, false
-			}
+		case '\n', '\r':
 			return i, false
 		}
 	}
@@ -279,11 +279,11 @@ func scanWord(src []byte, i int) (end int, ident bool) {
 			}
 		} else {
 			switch c {
-			case ' ', '\t', '\r', '\f', '\v':
+			case ' ', '\t', '\f', '\v':
 				if depth == 0 {
 					return i, ident
 				}
-			case '\n', '{', '}', ',', ';', '#', '"', '=', '<', '>':
+			case '\n', '\r', '{', '}', ',', ';', '#', '"', '=', '<', '>':
 				return i, ident
 			case '+':
 				if i+1 < len(src) && (src[i+1] == '-' || src[i+1] == '/' && i+2 < len(src) && src[i+2] == '-') {

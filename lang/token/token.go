@@ -9,7 +9,7 @@ type Kind uint8
 const (
 	EOF       Kind = iota
 	Illegal        // a character that starts no token, or invalid UTF-8
-	Newline        // "\n": ends a statement or a block entry
+	Newline        // "\n", "\r\n" or a lone "\r": ends a statement or a block entry
 	Semi           // ";": ends a statement or a block entry, like a newline
 	Comment        // "#" to the end of the line
 	Ident          // a name or keyword: a letter or "_", then letters, digits, "_" or "-"

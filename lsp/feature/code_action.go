@@ -64,12 +64,7 @@ func QuickFixes(res *lang.Result, d model.Diagnostic) []QuickFix {
 				break
 			}
 		}
-		// The line start as the editor counts lines: after "\n" or a lone "\r".
-		src := f.Src.Src
-		start := at
-		for start > 0 && src[start-1] != '\n' && src[start-1] != '\r' {
-			start--
-		}
+		start := f.Src.LineStart(f.Src.Position(at).Line)
 		return []QuickFix{{
 			Title: "Declare stream " + name,
 			Edits: []Edit{{Span: model.Span{Start: start, End: start}, NewText: "stream " + name + "\n"}},

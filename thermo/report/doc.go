@@ -18,6 +18,10 @@ type Input struct {
 	Model  *model.Model
 	Result *solve.Result // nil when the file could not be solved
 	Diags  []model.Diagnostic
+	// Where writes the place of a byte offset of Src as the report prints it: the caller's line
+	// index, "12:5" (1-based line, column in code points) from the notation's. nil prints the
+	// byte offset.
+	Where func(offset int) string
 }
 
 // solved reports whether there is anything to tabulate or draw.

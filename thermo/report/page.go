@@ -5,7 +5,6 @@ import (
 	"io"
 	"math"
 	"strings"
-	"unicode/utf8"
 
 	"hmb/thermo/model"
 	"hmb/thermo/solve"
@@ -109,24 +108,11 @@ func expectValue(in *Input, ex *model.Expect) string {
 	return q.show(spec.Dim, v)
 }
 
-// position is the 1-based line and column (in code points) of a byte offset.
-func position(src []byte, off int) (line, col int) {
-	off = max(0, min(off, len(src)))
-	line, start := 1, 0
-	for i := 0; i < off; i++ {
-		if src[i] == '\n' {
-			line, start = line+1, i+1
-		}
-	}
-	return line, utf8.RuneCount(src[start:off]) + 1
-}
-
 func (in *Input) where(sp model.Span) string {
-	if in.Src == nil {
+	if in.Where == nil {
 		return fmt.Sprintf("byte %d", sp.Start)
 	}
-	l, c := position(in.Src, sp.Start)
-	return fmt.Sprintf("%d:%d", l, c)
+	return in.Where(sp.Start)
 }
 
 // WritePage writes the whole report as one HTML page that needs no other file: styles and

@@ -2,6 +2,7 @@ package report
 
 import (
 	"bytes"
+	"fmt"
 	"strings"
 	"testing"
 
@@ -22,6 +23,10 @@ func TestPage(t *testing.T) {
 	in.Model.Expects = append(in.Model.Expects, &model.Expect{Stream: 2, Unit: -1, Prop: "x", Op: model.Ge, Value: 0.95, Span: model.Span{Start: 19, End: 37}})
 	in.Diags = append(in.Diags, model.Diagnostic{Span: model.Span{Start: 0, End: 1}, Severity: model.Warning, Code: "Z999",
 		Message: "an invented warning with <markup> & more", Related: []model.Related{{Span: model.Span{Start: 19, End: 20}, Message: "second line"}}})
+	in.Where = func(off int) string { // the caller's line index: here, lines of ASCII text
+		line := 1 + bytes.Count(in.Src[:off], []byte("\n"))
+		return fmt.Sprintf("%d:%d", line, off-bytes.LastIndexByte(in.Src[:off], '\n'))
+	}
 	var b bytes.Buffer
 	if err := WritePage(&b, in, PageOptions{Version: "9.9"}); err != nil {
 		t.Fatal(err)
@@ -86,11 +91,15 @@ func TestExpectationsUnsolved(t *testing.T) {
 	}
 }
 
-func TestPosition(t *testing.T) {
-	src := []byte("ab\n°C x\n")
-	for _, tt := range []struct{ off, line, col int }{{0, 1, 1}, {3, 2, 1}, {6, 2, 3}, {99, 3, 1}, {-5, 1, 1}} {
-		if l, c := position(src, tt.off); l != tt.line || c != tt.col {
-			t.Errorf("position(%d) = %d:%d, want %d:%d", tt.off, l, c, tt.line, tt.col)
-		}
+// The findings table writes places through the caller's line index (Input.Where), and byte
+// offsets without one.
+func TestWhere(t *testing.T) {
+	in := &Input{}
+	if got := in.where(model.Span{Start: 7}); got != "byte 7" {
+		t.Errorf("without a line index: %q", got)
+	}
+	in.Where = func(off int) string { return fmt.Sprintf("L%d", off) }
+	if got := in.where(model.Span{Start: 7}); got != "L7" {
+		t.Errorf("with a line index: %q", got)
 	}
 }

@@ -148,62 +148,22 @@ func WriteCSV(w io.Writer, in *Input) error {
 }
 
 // WriteHTML writes the two tables as a small standalone page (well-formed XML as well as HTML,
-// so any XML parser can read it).
+// so any XML parser can read it), through html/template (html.go).
 func WriteHTML(w io.Writer, in *Input) error {
 	if in == nil || in.Model == nil {
 		return fmt.Errorf("nothing to tabulate: the file could not be read into a model")
 	}
-	var b strings.Builder
 	title := Title(in.Model, in.Path)
-	pageHead(&b, title)
-	fmt.Fprintf(&b, "<h1>%s</h1>\n<p class=\"basis\">%s.</p>\n", esc(title), esc(basis(in.Model)))
-	htmlTables(&b, in)
-	b.WriteString("</body>\n</html>\n")
-	_, err := io.WriteString(w, b.String())
-	return err
+	return htmlTmpl.ExecuteTemplate(w, "tables-page", tablesPage{Title: title, Basis: basis(in.Model), Tables: htmlTableViews(in)})
 }
 
 func esc(s string) string { return html.EscapeString(s) }
 
+// htmlTables writes the stream and unit tables for a page being built as a string.
 func htmlTables(b *strings.Builder, in *Input) {
-	for _, t := range []Table{StreamTable(in.Model, in.Result), UnitTable(in.Model, in.Result)} {
-		fmt.Fprintf(b, "<h2>%s</h2>\n", esc(strings.ToUpper(t.Name[:1])+t.Name[1:]))
-		if len(t.Rows) == 0 {
-			fmt.Fprintf(b, "<p>No %s.</p>\n", esc(t.Name))
-			continue
-		}
-		writeHTMLTable(b, t)
-		if t.Name == "units" {
-			fmt.Fprintf(b, "<p class=\"note\">%s</p>\n", esc(UnitNotes))
-		}
+	if err := htmlTmpl.ExecuteTemplate(b, "tables", htmlTableViews(in)); err != nil {
+		fmt.Fprintf(b, "<p class=\"error\">%s</p>\n", esc(err.Error()))
 	}
-}
-
-func writeHTMLTable(b *strings.Builder, t Table) {
-	fmt.Fprintf(b, "<table class=\"%s\">\n<thead>\n<tr>", esc(t.Name))
-	for _, c := range t.Cols {
-		fmt.Fprintf(b, "<th>%s</th>", esc(c.Name))
-	}
-	b.WriteString("</tr>\n<tr class=\"units\">")
-	for _, c := range t.Cols {
-		fmt.Fprintf(b, "<th>%s</th>", esc(c.Unit))
-	}
-	b.WriteString("</tr>\n</thead>\n<tbody>\n")
-	for _, r := range t.Rows {
-		b.WriteString("<tr>")
-		for j, c := range r {
-			class := ""
-			switch {
-			case c == Unsolved:
-				class = ` class="unsolved"`
-			case j < len(t.Cols) && t.Cols[j].Num:
-				class = ` class="num"`
-			}
-			fmt.Fprintf(b, "<td%s>%s</td>", class, esc(c))
-		}
-		b.WriteString("</tr>\n")
-	}
-	b.WriteString("</tbody>\n</table>\n")
 }
 
 // style is the whole stylesheet: the page must need no other file.
@@ -220,5 +180,7 @@ figure{margin:1em 0}figure svg{width:100%;height:auto;border:1px solid #ccc}figc
 `
 
 func pageHead(b *strings.Builder, title string) {
-	fmt.Fprintf(b, "<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>%s</title>\n<style>\n%s</style>\n</head>\n<body>\n", esc(title), style)
+	if err := htmlTmpl.ExecuteTemplate(b, "head", title); err != nil {
+		fmt.Fprintf(b, "<!-- %s -->", esc(err.Error()))
+	}
 }
