@@ -213,16 +213,22 @@ type Keyword struct {
 // keywordDocs is the help on each keyword; every setting the checker knows has one
 // (TestKeywordsCoverSettings).
 var keywordDocs = map[string]string{
-	"stream":     "declares a stream (a state point): stream NAME \"label\" { givens }, or stream A, B, C for bare streams",
-	"expect":     "checks a solved value: expect NAME RESULT OP VALUE [within TOLERANCE]",
-	"title":      "setting: the title of the calc",
-	"display":    "setting: the unit system results are shown in, SI or US",
-	"atmosphere": "setting: the site atmosphere gauge pressures are measured against",
-	"elevation":  "setting: the site elevation, giving the atmosphere from the standard atmosphere",
-	"tolerance":  "setting: the relative closure tolerance of the balances",
-	"ambient":    "setting: the temperature of the surroundings, at which heat losses leave (25 C when not set)",
-	"within":     "the tolerance of an expectation: expect S1 T = 300 C within 2 C",
-	"fluid":      "the stream's fluid (water, liquid or steam: IAPWS-IF97)",
+	"stream":      "declares a stream (a state point): stream NAME \"label\" { givens }, or stream A, B, C for bare streams",
+	"expect":      "checks a solved value: expect NAME RESULT OP VALUE [within TOLERANCE]",
+	"title":       "setting: the title of the calc",
+	"display":     "setting: the unit system results are shown in, SI or US",
+	"atmosphere":  "setting: the site atmosphere gauge pressures are measured against",
+	"elevation":   "setting: the site elevation, giving the atmosphere from the standard atmosphere",
+	"tolerance":   "setting: the relative closure tolerance of the balances",
+	"ambient":     "setting: the temperature of the surroundings, at which heat losses leave (25 C when not set)",
+	"project":     "setting (report title block): the project the calc belongs to",
+	"document":    "setting (report title block): the document number of the calc",
+	"revision":    "setting (report title block): the revision of the document",
+	"prepared_by": "setting (report title block): who prepared the calc",
+	"checked_by":  "setting (report title block): who checked the calc",
+	"date":        "setting (report title block): the date of this revision",
+	"within":      "the tolerance of an expectation: expect S1 T = 300 C within 2 C",
+	"fluid":       "the stream's fluid (water, liquid or steam: IAPWS-IF97)",
 }
 
 // Keywords lists the notation's keywords with their help, in completion order: the statements,

@@ -21,7 +21,7 @@ func TestReportExamples(t *testing.T) {
 			t.Errorf("%s: %v", f, err)
 		}
 		page := string(out)
-		if !strings.Contains(page, report.Caution) || strings.Count(page, "<svg ") != 2 {
+		if !strings.Contains(page, report.Caution) || strings.Count(page, "<svg ") != 4 {
 			t.Errorf("%s: caution or diagrams missing", f)
 		}
 		src, err := os.ReadFile(f)

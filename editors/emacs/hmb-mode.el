@@ -46,7 +46,7 @@
     "desuperheater")
   "Unit kinds: the equipment a block can declare.")
 
-(defconst hmb--settings '("title" "display" "atmosphere" "elevation" "tolerance" "ambient")
+(defconst hmb--settings '("title" "display" "atmosphere" "elevation" "tolerance" "ambient" "project" "document" "revision" "prepared_by" "checked_by" "date")
   "Top-level settings.")
 
 (defconst hmb--roles

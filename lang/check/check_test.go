@@ -202,7 +202,7 @@ func TestDiagnostics(t *testing.T) {
 			[]want{{code: "HMB307", at: "0.1", msg: "the tolerance 0.1 of p has no unit: give it in % or in a unit of pressure, such as bar, kPa, psia or psig"}}, false},
 		{"unknown setting with a suggestion", "dispaly US",
 			[]want{{code: "HMB308", at: "dispaly", fix: "display",
-				msg: "unknown setting dispaly (settings: title, display, atmosphere, elevation, tolerance, ambient); did you mean display?"}}, false},
+				msg: "unknown setting dispaly (settings: title, display, atmosphere, elevation, tolerance, ambient, project, document, revision, prepared_by, checked_by, date); did you mean display?"}}, false},
 		{"setting twice", "display US\ndisplay SI",
 			[]want{{code: "HMB309", at: "US\n|display", msg: "display is set twice", rel: "display US"}}, false},
 		{"atmosphere and elevation", "atmosphere 14.2 psia\nelevation 300 m",

@@ -11,7 +11,18 @@ import (
 )
 
 // Settings lists the top-level settings, for completion and suggestions.
-var Settings = []string{"title", "display", "atmosphere", "elevation", "tolerance", "ambient"}
+var Settings = []string{"title", "display", "atmosphere", "elevation", "tolerance", "ambient",
+	"project", "document", "revision", "prepared_by", "checked_by", "date"}
+
+// sheetFields are the settings of the report's title block: each takes a string.
+var sheetFields = map[string]func(*model.Sheet) *string{
+	"project":     func(s *model.Sheet) *string { return &s.Project },
+	"document":    func(s *model.Sheet) *string { return &s.Document },
+	"revision":    func(s *model.Sheet) *string { return &s.Revision },
+	"prepared_by": func(s *model.Sheet) *string { return &s.PreparedBy },
+	"checked_by":  func(s *model.Sheet) *string { return &s.CheckedBy },
+	"date":        func(s *model.Sheet) *string { return &s.Date },
+}
 
 // settings reads the top-level settings first, wherever they stand: gauge pressures anywhere in
 // the file need the site atmosphere.
@@ -51,6 +62,14 @@ func (c *checker) settings() {
 func (c *checker) setting(s *ast.Setting) {
 	key := s.Key.Name
 	bad := func(want string) { c.errorf(CodeSettingValue, s, "%s takes %s", key, want) }
+	if field, ok := sheetFields[key]; ok {
+		if s.Str == nil {
+			bad(fmt.Sprintf("a string: %s \"...\"", key))
+			return
+		}
+		*field(&c.m.Sheet) = s.Str.Value
+		return
+	}
 	switch key {
 	case "title":
 		if s.Str == nil {
@@ -137,5 +156,3 @@ func kindNames() []string {
 	slices.Sort(names)
 	return names
 }
-
-var _ = fmt.Sprint

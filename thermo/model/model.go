@@ -149,9 +149,17 @@ type Expect struct {
 	Span     Span
 }
 
+// Sheet is the title block a report carries: the project, the document and its revision, who
+// prepared and who checked the calc, and when. Every field is optional; a report leaves an
+// empty field blank for a hand to fill in.
+type Sheet struct {
+	Project, Document, Revision, PreparedBy, CheckedBy, Date string
+}
+
 // Model is a whole calc file, ready to solve.
 type Model struct {
 	Title     string
+	Sheet     Sheet
 	Display   units.System // the unit system results are shown in
 	Atm       float64      // site atmosphere, Pa (gauge pressures are already converted)
 	Tolerance float64      // relative closure tolerance of balances (fraction, e.g. 0.001)

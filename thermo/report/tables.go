@@ -23,6 +23,12 @@ type Table struct {
 	Name string // "streams", "units"
 	Cols []Column
 	Rows [][]string
+	// Given marks the cells whose value the file states (a stream's given, a unit's parameter)
+	// rather than the solver found; Source says, per cell, where a value came from (the
+	// solver's provenance: "given S1 p", "energy balance of mixer DA"), "" when not known. Both
+	// are parallel to Rows.
+	Given  [][]bool
+	Source [][]string
 }
 
 // Unsolved marks a cell whose value the solver did not find. It is the text units.Format gives a
@@ -78,7 +84,9 @@ func StreamTable(m *model.Model, r *solve.Result) Table {
 		sub := model.Subject{Kind: model.StreamSubject, Index: i}
 		hasState := r != nil && i < len(r.Streams) && r.Streams[i].HasState
 		row := []string{s.Name, s.Label}
-		for _, name := range streamColumns {
+		given := make([]bool, len(t.Cols))
+		source := make([]string, len(t.Cols))
+		for j, name := range streamColumns {
 			v, spec, _ := r.Value(m, sub, name)
 			switch {
 			case name == "x" && hasState && math.IsNaN(v):
@@ -86,14 +94,45 @@ func StreamTable(m *model.Model, r *solve.Result) Table {
 			default:
 				row = append(row, q.cell(spec.Dim, v))
 			}
+			given[2+j], source[2+j] = streamProvenance(s, r, i, name)
 		}
 		phase := "unsolved"
 		if hasState {
 			phase = r.Streams[i].State.Phase.String()
 		}
 		t.Rows = append(t.Rows, append(row, phase))
+		t.Given = append(t.Given, given)
+		t.Source = append(t.Source, source)
 	}
 	return t
+}
+
+// streamProvenance says whether a stream's property was given in the file and where its value
+// came from: the solver's provenance when the file was solved, the file's givens otherwise.
+func streamProvenance(s *model.Stream, r *solve.Result, i int, name string) (given bool, source string) {
+	p := model.NumProps
+	for k := model.Prop(0); k < model.NumProps; k++ {
+		if k.String() == name {
+			p = k
+		}
+	}
+	if p == model.NumProps {
+		return false, ""
+	}
+	if r == nil || i >= len(r.Streams) {
+		if s.Given[p] != nil {
+			return true, "given " + s.Name + " " + name
+		}
+		return false, ""
+	}
+	src := r.Streams[i].Source[p]
+	switch src.Kind {
+	case solve.ProvGiven:
+		return true, src.Label
+	case solve.ProvNone:
+		return s.Given[p] != nil, ""
+	}
+	return false, src.Label
 }
 
 // unitColumns are the unit results the unit table shows, with their headings. A cell is blank
@@ -120,11 +159,16 @@ func UnitTable(m *model.Model, r *solve.Result) Table {
 			kind = u.Kind.Name
 		}
 		row := []string{u.Name, u.Label, kind}
-		for _, c := range unitColumns {
+		given := make([]bool, len(t.Cols))
+		source := make([]string, len(t.Cols))
+		for j, c := range unitColumns {
 			v, spec, ok := r.Value(m, model.Subject{Kind: model.UnitSubject, Index: i}, c.name)
 			if !ok {
 				row = append(row, "")
 				continue
+			}
+			if u.Params[c.name] != nil {
+				given[3+j], source[3+j] = true, "given "+u.Name+" "+c.name
 			}
 			cell := q.cell(spec.Dim, v)
 			if c.name == "sgen" && r != nil && i < len(r.Units) && r.Units[i].SgenFluidOnly && !math.IsNaN(v) {
@@ -133,6 +177,8 @@ func UnitTable(m *model.Model, r *solve.Result) Table {
 			row = append(row, cell)
 		}
 		t.Rows = append(t.Rows, row)
+		t.Given = append(t.Given, given)
+		t.Source = append(t.Source, source)
 	}
 	return t
 }

@@ -148,39 +148,15 @@ func WriteCSV(w io.Writer, in *Input) error {
 }
 
 // WriteHTML writes the two tables as a small standalone page (well-formed XML as well as HTML,
-// so any XML parser can read it), through html/template (html.go).
+// so any XML parser can read it), in the report's style.
 func WriteHTML(w io.Writer, in *Input) error {
 	if in == nil || in.Model == nil {
 		return fmt.Errorf("nothing to tabulate: the file could not be read into a model")
 	}
-	title := Title(in.Model, in.Path)
-	return htmlTmpl.ExecuteTemplate(w, "tables-page", tablesPage{Title: title, Basis: basis(in.Model), Tables: htmlTableViews(in)})
+	return pageTemplates.ExecuteTemplate(w, "tablepage", struct {
+		Title, Basis string
+		Tables       []tableView
+	}{Title(in.Model, in.Path), basis(in.Model), tableViews(in)})
 }
 
 func esc(s string) string { return html.EscapeString(s) }
-
-// htmlTables writes the stream and unit tables for a page being built as a string.
-func htmlTables(b *strings.Builder, in *Input) {
-	if err := htmlTmpl.ExecuteTemplate(b, "tables", htmlTableViews(in)); err != nil {
-		fmt.Fprintf(b, "<p class=\"error\">%s</p>\n", esc(err.Error()))
-	}
-}
-
-// style is the whole stylesheet: the page must need no other file.
-const style = `body{font-family:"DejaVu Sans",Arial,sans-serif;font-size:11pt;color:#111;max-width:60em;margin:1.5em auto;padding:0 1em}
-h1{font-size:1.6em;margin-bottom:.2em}h2{font-size:1.25em;border-bottom:1px solid #999;margin-top:1.6em}
-table{border-collapse:collapse;margin:.5em 0}th,td{border:1px solid #bbb;padding:.2em .5em;vertical-align:top}
-th{background:#eee;text-align:left}tr.units th{font-weight:normal;font-style:italic;background:#f6f6f6}
-td.num{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}td.unsolved{text-align:center;color:#a00}
-.basis,.note,.meta{color:#444}.caution{border:2px solid #b36b00;background:#fff6e5;padding:.6em 1em;margin:1em 0}
-.pass{color:#060;font-weight:bold}.fail{color:#b00;font-weight:bold}.unchecked{color:#a60;font-weight:bold}
-.error{color:#b00}.warning{color:#a60}.info,.hint{color:#036}code{font-family:"DejaVu Sans Mono",monospace}
-figure{margin:1em 0}figure svg{width:100%;height:auto;border:1px solid #ccc}figcaption{color:#444;font-size:.9em}
-@media print{body{max-width:none;margin:0}h2{page-break-after:avoid}figure{page-break-inside:avoid}}
-`
-
-func pageHead(b *strings.Builder, title string) {
-	if err := htmlTmpl.ExecuteTemplate(b, "head", title); err != nil {
-		fmt.Fprintf(b, "<!-- %s -->", esc(err.Error()))
-	}
-}

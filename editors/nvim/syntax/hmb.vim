@@ -14,7 +14,7 @@ syn keyword hmbStatement stream nextgroup=hmbStreamDecl skipwhite
 syn match   hmbStreamDecl "\k\+\%(\s*,\s*\k\+\)*" contained contains=hmbComma
 syn keyword hmbStatement expect nextgroup=hmbTarget skipwhite
 syn match   hmbTarget    "\k\+" contained nextgroup=hmbProperty skipwhite
-syn keyword hmbSetting   title atmosphere elevation tolerance ambient
+syn keyword hmbSetting   title atmosphere elevation tolerance ambient project document revision prepared_by checked_by date
 syn keyword hmbSetting   display nextgroup=hmbSystem skipwhite
 syn keyword hmbSystem    SI US contained
 syn keyword hmbKind      mixer splitter valve heater cooler boiler turbine pump exchanger flash desuperheater nextgroup=hmbUnitDecl skipwhite
