@@ -51,14 +51,14 @@ turbine T1 {
 //	s2 = IAPWS97(P=0.1, h=h2)                T 372.75592  x 0.97016824  s 7.1781382  v 1.6435180
 //	power 10*(s1.h - h2) = 6067.6945 kW; entropy generated 10*(s2.s - s1.s) = 4.0694617 kW/K
 const (
-	refH1, refS1, refV1        = 3214.3735, 6.7711920, 0.073431804
-	refH2, refT2, refX2        = 2607.6041, 372.75592 - 273.15, 0.97016824
-	refS2, refV2               = 7.1781382, 1.6435180
-	refPowerKW, refSgenKWPerK  = 6067.6945, 4.0694617
-	refT2F                     = (372.75592-273.15)*9/5 + 32 // the same state in °F
+	refH1, refS1, refV1       = 3214.3735, 6.7711920, 0.073431804
+	refH2, refT2, refX2       = 2607.6041, 372.75592 - 273.15, 0.97016824
+	refS2, refV2              = 7.1781382, 1.6435180
+	refPowerKW, refSgenKWPerK = 6067.6945, 4.0694617
+	refT2F                    = (372.75592-273.15)*9/5 + 32 // the same state in °F
 	// Shaft power shows in hp in US units: 1 hp = 550 ft lbf/s = 745.69987158227022 W (NIST SP
 	// 811 (2008) Appendix B.8, from the foot and the pound-force).
-	refPowerHp = 6067.6945e3 / 745.69987158227022
+	refPowerHp                 = 6067.6945e3 / 745.69987158227022
 	solvedTol                  = 1e-4 // the display rounds to 5 significant figures
 	solvedURI                  = protocol.DocumentURI("file:///expansion.hmb")
 	hoverTable, hoverUnitTable = "| | value | from |", "| balance | in | out |"

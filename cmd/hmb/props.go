@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strconv"
 	"strings"
 
 	"hmb/thermo/if97"
@@ -305,12 +306,15 @@ func writeStateTable(w io.Writer, st if97.State, sys units.System, atm float64) 
 	fmt.Fprintf(w, "water, %s (IF97 region %d)\n", st.Phase, st.Region)
 	gauge := ""
 	if g := sys.Gauge(); g != (units.Unit{}) {
-		gauge = fmt.Sprintf("(%s %s)", units.Format(g.FromSI(st.P, atm), 6), g.Symbol())
+		// The gauge reading is p less the atmosphere: it has no digit finer than they show.
+		ref := max(g.DeltaFromSI(st.P), g.DeltaFromSI(atm))
+		gauge = fmt.Sprintf("(%s %s)", units.FormatDiff(g.FromSI(st.P, atm), ref, 6), g.Symbol())
 	}
 	row("p", st.P, units.Pressure, gauge)
 	row("T", st.T, units.Temperature, "")
 	if !math.IsNaN(st.X) {
-		fmt.Fprintf(w, "  %-4s %12s %-12s\n", "x", units.Format(st.X, 6), "")
+		// Six decimals, so that 0 and 1 read with the digits of 0.95.
+		fmt.Fprintf(w, "  %-4s %12s %-12s\n", "x", strconv.FormatFloat(st.X, 'f', 6, 64), "")
 	}
 	row("h", st.H, units.SpecificEnergy, "")
 	row("s", st.S, units.SpecificEntropy, "")

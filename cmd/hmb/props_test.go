@@ -83,6 +83,15 @@ func TestPropsText(t *testing.T) {
 		{[]string{"p=150psig", "x=1"}, []string{"saturated vapour", "365.872 F", "1195.97 Btu/lbm", "150.000 psig"}},
 		// python3-iapws: the same state is 458.6345956772081 K = 185.4846 C.
 		{[]string{"--si", "p=150psig", "x=1"}, []string{"185.485 C"}},
+		// 14.696 psia is 5.1e-5 psi above the standard atmosphere (14.695949 psia, NIST SP 811
+		// (2008) App. B.8 psi): within what 14.6960 resolves, so 0 psig. Quality with six
+		// decimals at 0 and 1 alike.
+		{[]string{"p=14.696psia", "x=0"}, []string{"14.6960 psia (0 psig)", "x 0.000000"}},
+		{[]string{"p=14.696psia", "x=1"}, []string{"(0 psig)", "x 1.000000"}},
+		{[]string{"p=14.696psia", "x=0.5"}, []string{"x 0.500000"}},
+		// 28 inHg below the standard atmosphere is 0.943633 psia (NIST SP 811 inHg, conventional):
+		// -13.7523 psig, the digits of the atmosphere it is read against.
+		{[]string{"p=28inHg(vac)", "x=0"}, []string{"0.943633 psia (-13.7523 psig)"}},
 	}
 	for _, tt := range tests {
 		var out, errb bytes.Buffer

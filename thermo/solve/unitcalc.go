@@ -122,6 +122,9 @@ func (c *unitCalc) heatEntropy(q, t float64) float64 {
 // of the entropy its heat carries across the boundary): an entropy balance judged by the same
 // measure as the mass balance is, and never by enthalpy, whose zero is a convention.
 func (c *unitCalc) checkSgen() {
+	// A generation within the rounding of the unit's own entropy flows (3e-15 kW/K of a heater
+	// at zero duty) is the 0 it stands for.
+	c.res.Sgen = units.Resolved(c.res.Sgen, c.sIn+c.sOut+c.sHeat)
 	sg := c.res.Sgen
 	if !finite(sg) {
 		return

@@ -41,3 +41,45 @@ func TestFormat(t *testing.T) {
 		}
 	}
 }
+
+// A difference shows no digit its operands do not resolve. Expected strings by the rule in
+// FormatDiff's comment; no outside table exists for a formatting choice. The psi figures:
+// 101325 Pa = 14.695949 psia (1 psi = 6894.757293168 Pa, NIST SP 811 (2008) App. B.8).
+func TestFormatDiff(t *testing.T) {
+	tests := []struct {
+		v, ref float64
+		sig    int
+		want   string
+	}{
+		{14.696 - 14.695949, 14.696, 6, "0"},             // 5.1e-5 psig: within a unit of 1e-4
+		{14.6962 - 14.695949, 14.6962, 6, "0.0003"},      // beyond it: one significant figure
+		{164.696 - 14.695949, 164.696, 6, "150.000"},     // the digits of 164.696
+		{0.943633 - 14.695949, 14.695949, 6, "-13.7523"}, // a vacuum: the atmosphere is the larger operand
+		{-3.6e-15, 1e3, 5, "0"},
+		{0.1, 1e3, 5, "0"}, // 1000.0 resolves 0.1 only to a unit
+		{0.25, 1e3, 5, "0.3"},
+		{2.5e6, 1e6, 5, "2500000"},
+		{0, 0, 5, "0"},
+		{math.NaN(), 1, 5, "n/a"},
+	}
+	for _, tt := range tests {
+		if got := FormatDiff(tt.v, tt.ref, tt.sig); got != tt.want {
+			t.Errorf("FormatDiff(%g, %g, %d) = %q, want %q", tt.v, tt.ref, tt.sig, got, tt.want)
+		}
+	}
+}
+
+func TestResolved(t *testing.T) {
+	tests := []struct{ v, scale, want float64 }{
+		{-3.6e-12, 5e4, 0},     // -3.6e-15 kW/K against 50 kW/K of entropy flows
+		{3.0013e-12, 20527, 0}, // a heater at zero duty, two-phase
+		{0.021, 330e3, 0.021},  // a real generation 6e-8 of the flows: kept
+		{1e-6, 0, 1e-6},        // nothing to compare with: kept
+		{-42, 1e3, -42},
+	}
+	for _, tt := range tests {
+		if got := Resolved(tt.v, tt.scale); got != tt.want {
+			t.Errorf("Resolved(%g, %g) = %g, want %g", tt.v, tt.scale, got, tt.want)
+		}
+	}
+}
