@@ -80,6 +80,16 @@ func siteAtmosphere(atmArg, elevArg string) (float64, error) {
 	case atmArg != "" && elevArg != "":
 		return 0, errors.New("--atm and --elevation exclude each other")
 	case atmArg != "":
+		if _, sp, err := units.ParseQuantity(atmArg); err == nil {
+			if u, err := units.Lookup(sp); err == nil && u.Dim() == units.Pressure && !u.Level() {
+				for _, r := range u.Readings() {
+					if r.Reading() == units.Absolute {
+						num := strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(atmArg), sp))
+						return 0, fmt.Errorf("--atm: the site atmosphere is an absolute pressure: write %s%s", num, r.Symbol())
+					}
+				}
+			}
+		}
 		v, u, err := quantity(atmArg, units.Pressure)
 		if err != nil {
 			return 0, fmt.Errorf("--atm: %v", err)

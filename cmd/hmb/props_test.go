@@ -153,7 +153,8 @@ func TestPropsErrors(t *testing.T) {
 		{[]string{"p=5psid", "x=1"}, "write 5psia or 5psig"},
 		{[]string{"p=28 inHg", "x=0"}, "p: 28 inHg does not say whether it is absolute or a vacuum below the site atmosphere: write 28inHg(abs) or 28inHg(vac)"},
 		{[]string{"p=700mmHg", "x=0"}, "write 700mmHg(abs) or 700mmHg(vac)"},
-		{[]string{"--atm", "14.2psi", "p=1bar", "x=0"}, "--atm: 14.2psi does not say"},
+		{[]string{"--atm", "14.2psi", "p=1bar", "x=0"}, "--atm: the site atmosphere is an absolute pressure: write 14.2psia"},
+		{[]string{"--atm", "29.9 inHg", "p=1bar", "x=0"}, "write 29.9inHg(abs)"},
 		{[]string{"--atm", "1inHg(vac)", "p=1bar", "x=0"}, "absolute pressure, not inHg(vac)"},
 		// Spacing: a name with its value but no "=" is named with the fix.
 		{[]string{"p", "10bar", "T=200C"}, `"p 10bar": write p=10bar (NAME=VALUE)`},

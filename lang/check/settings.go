@@ -94,6 +94,16 @@ func (c *checker) setting(s *ast.Setting) {
 			bad("an absolute pressure: atmosphere 14.2 psia")
 			return
 		}
+		if u, err := c.lookupUnit(spelling(s.Qty)); err == nil && u.Dim() == units.Pressure && !u.Level() {
+			// A barometer reads absolute: of the readings only that one fits.
+			for _, r := range u.Readings() {
+				if r.Reading() == units.Absolute {
+					d := c.errorf(CodeNoReading, s.Qty.Unit, "the atmosphere is an absolute pressure: write %s %s", s.Qty.Raw, r.Symbol())
+					d.Fix = r.Symbol()
+				}
+			}
+			return
+		}
 		v, u, ok := c.convert(s.Qty, units.Pressure, key, false)
 		switch {
 		case !ok:
