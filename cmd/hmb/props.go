@@ -33,8 +33,27 @@ func runProps(args []string, stdout io.Writer) error {
 	asJSON := fs.Bool("json", false, "print one JSON object in SI base units")
 	atmArg := fs.String("atm", "", "site atmosphere for gauge pressures, e.g. 12.9psia")
 	elevArg := fs.String("elevation", "", "site elevation for gauge pressures, e.g. 1500m")
-	if err := parseFlags(fs, args, stdout); err != nil {
-		return err
+	// Options may follow the properties too (hmb props p=1MPa h=2800kJ/kg --json): parse them
+	// wherever they stand, up to a "--".
+	var positional []string
+	for rest := args; ; {
+		if err := parseFlags(fs, rest, stdout); err != nil {
+			return err
+		}
+		rest = fs.Args()
+		i := 0
+		for i < len(rest) && !isOption(rest[i]) {
+			i++
+		}
+		positional = append(positional, rest[:i]...)
+		if i == len(rest) {
+			break
+		}
+		if rest[i] == "--" {
+			positional = append(positional, rest[i+1:]...)
+			break
+		}
+		rest = rest[i:]
 	}
 	display, err := sysFlags.display()
 	if err != nil {
@@ -44,7 +63,7 @@ func runProps(args []string, stdout io.Writer) error {
 	if err != nil {
 		return usageErr("%v", err)
 	}
-	pairs, err := propPairs(fs.Args())
+	pairs, err := propPairs(positional)
 	if err != nil {
 		return usageErr("%v", err)
 	}
@@ -144,6 +163,19 @@ func quantity(s string, d units.Dim) (float64, units.Unit, error) {
 			s, strings.Join(words, " or "), strings.Join(spell, " or "))
 	}
 	return v, u, nil
+}
+
+// isOption reports whether a word is an option (--json, -si) rather than part of a property:
+// a value may start with a minus sign, never with a minus and a letter.
+func isOption(w string) bool {
+	if w == "--" {
+		return true
+	}
+	if len(w) < 2 || w[0] != '-' {
+		return false
+	}
+	c := strings.TrimLeft(w, "-")
+	return c != "" && (c[0] >= 'a' && c[0] <= 'z' || c[0] >= 'A' && c[0] <= 'Z')
 }
 
 // propName is the property a NAME argument stands for: T in either case, p h s x in either case.

@@ -107,8 +107,8 @@ func TestPropsText(t *testing.T) {
 	}
 }
 
-// TestPropsSpacing: however the shell splits NAME = VALUE, the pair is read as one, and a value
-// may hold spaces. Every row is the state of p=10bar T=200C (python3-iapws: IAPWS97(P=1,
+// TestPropsSpacing: however the shell splits NAME = VALUE, the pair is read as one, a value may
+// hold spaces, and options may follow the properties. Every row is the state of p=10bar T=200C (python3-iapws: IAPWS97(P=1,
 // T=473.15).h = 2828.2675375980625 kJ/kg).
 func TestPropsSpacing(t *testing.T) {
 	for _, args := range [][]string{
@@ -118,9 +118,11 @@ func TestPropsSpacing(t *testing.T) {
 		{"p = 10 bar", "T = 200 C"},
 		{"p", "=", "10", "bar", "T=", "200", "C"},
 		{"P=10bar", "t=200C"},
+		{"p=10bar", "--si", "T=200C"},
+		{"p=10bar", "T=200C", "--atm", "14.2psia"},
 	} {
 		var out, errb bytes.Buffer
-		if code := run(append([]string{"props", "--json"}, args...), nil, &out, &errb); code != 0 {
+		if code := run(append([]string{"props"}, append(args, "--json")...), nil, &out, &errb); code != 0 {
 			t.Errorf("%q: exit %d: %s", args, code, errb.String())
 			continue
 		}
