@@ -44,6 +44,6 @@ func finishDesuperheater(c *unitCalc) {
 	if !c.flows(ins, []int{out}, 0, loss) {
 		return
 	}
-	c.res.Sgen = c.entropyFlow(ins, []int{out}) + c.heatEntropy(loss, c.s.ambient())
+	c.res.Sgen = c.entropyFlow(ins, []int{out}) + c.lossEntropy(loss)
 	c.checkSgen()
 }

@@ -64,8 +64,9 @@ func finishExchanger(c *unitCalc) {
 	c.res.Q = c.param("duty", nanf)
 	c.pressureRise(hi, ho, "hot side")
 	c.pressureRise(ci, co, "cold side")
+	c.reversedDuty(hi, ho, ci, co)
 	if c.flows([]int{hi, ci}, []int{ho, co}, 0, loss) {
-		c.res.Sgen = c.entropyFlow([]int{hi, ci}, []int{ho, co}) + c.heatEntropy(loss, c.s.ambient())
+		c.res.Sgen = c.entropyFlow([]int{hi, ci}, []int{ho, co}) + c.lossEntropy(loss)
 		c.checkSgen()
 	}
 	for _, st := range []int{hi, ho, ci, co} {
@@ -116,6 +117,25 @@ func finishExchanger(c *unitCalc) {
 			c.name(), f.dq(units.Temperature, pr.dtMin), pr.where(pr.fMin), f.writtenDelta(units.Temperature, g.Value, g.Unit)),
 			related(g.Span, "min_approach given here"))
 	}
+}
+
+// reversedDuty reports an exchanger whose duty is below zero: heat passes from the side named
+// cold to the side named hot, which is a temperature cross of the roles as written.
+func (c *unitCalc) reversedDuty(hi, ho, ci, co int) {
+	q := c.res.Q
+	rhi, rho, rci, rco := c.s.res.Streams[hi], c.s.res.Streams[ho], c.s.res.Streams[ci], c.s.res.Streams[co]
+	if !finite(q) || !rhi.Solved || !rho.HasState || !rci.HasState || !rco.HasState {
+		return
+	}
+	if q >= -max(1, c.s.relTol*math.Abs(rhi.M*(rhi.State.H-rho.State.H))) {
+		return
+	}
+	c.rose = true // the entropy check would only repeat it
+	f := c.s.f
+	b := c.s.b
+	c.s.diag(model.Error, CodeTempCross, c.un.Span, fmt.Sprintf("%s: the duty is %s: heat passes from the cold side (%s %s to %s %s) to the hot side (%s %s to %s %s); swap the hot and cold roles, or correct the givens",
+		c.name(), f.q(units.Power, q), b.sname(ci), f.q(units.Temperature, rci.State.T), b.sname(co), f.q(units.Temperature, rco.State.T),
+		b.sname(hi), f.q(units.Temperature, rhi.State.T), b.sname(ho), f.q(units.Temperature, rho.State.T)))
 }
 
 // pressureRise reports a side of a unit whose outlet pressure is above its inlet's: only a pump

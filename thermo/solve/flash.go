@@ -44,7 +44,7 @@ func finishFlash(c *unitCalc) {
 	if !c.flows(ins, outs, 0, loss) {
 		return
 	}
-	c.res.Sgen = c.entropyFlow(ins, outs) + c.heatEntropy(loss, c.s.ambient())
+	c.res.Sgen = c.entropyFlow(ins, outs) + c.lossEntropy(loss)
 	c.checkSgen()
 }
 

@@ -51,7 +51,7 @@ func finishHeated(c *unitCalc) {
 	ds := c.entropyFlow(in, out)
 	if tb := c.param("T_boundary", nanf); finite(tb) {
 		c.res.TBoundary = tb
-		c.res.Sgen = ds - c.heatEntropy(sign*q, tb)
+		c.res.Sgen = ds - c.heatEntropy(sign*q, tb, "the duty crossing at T_boundary")
 		if !c.boundaryCross(in[0], out[0], tb, sign) {
 			c.checkSgen()
 		}

@@ -420,6 +420,27 @@ func TestImpossiblePlants(t *testing.T) {
 			absent:   []string{CodeEntropy},
 		},
 		{
+			name: "exchanger with its roles the wrong way round",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("H1", flow, 2, pp, 0.3e6, tt, 293.15), strm("H2", tt, 333.15), strm("C1", flow, 2, pp, 0.3e6, tt, 363.15), strm("C2")},
+					unit("X", "exchanger", ports("hot_in H1", "hot_out H2", "cold_in C1", "cold_out C2")))
+			},
+			code: CodeTempCross, sev: model.Error, at: unitAt("X"),
+			contains: []string{"the duty is -334.", "heat passes from the cold side (C1 90.000 C", "swap the hot and cold roles"},
+			absent:   []string{CodeEntropy},
+		},
+		{
+			// Heat gained from 25 C surroundings cannot warm water at about 87 C: the mixed water
+			// gains about 100 kW / 360 K of entropy, the surroundings lose 100 kW / 298.15 K.
+			name: "heat gained from colder surroundings",
+			m: func(t *testing.T) *model.Model {
+				return mk(t, streams{strm("A", flow, 2, pp, 0.3e6, tt, 348.15), strm("B", flow, 0.5, pp, 0.3e6, tt, 363.15), strm("O")},
+					unit("TK", "mixer", ports("in A", "in B", "out O"), "heat_loss", -100e3))
+			},
+			code: CodeEntropy, sev: model.Error, at: unitAt("TK"),
+			contains: []string{"destroys entropy", "with the heat loss leaving at the ambient 25.000 C"},
+		},
+		{
 			name: "exchanger closer than its min_approach",
 			m: func(t *testing.T) *model.Model {
 				return mk(t, streams{strm("H1", flow, 2, pp, 0.3e6, tt, 363.15), strm("H2", tt, 323.15), strm("C1", flow, 2, pp, 0.3e6, tt, 293.15), strm("C2")},

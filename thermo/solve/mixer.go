@@ -72,7 +72,7 @@ func finishMixer(c *unitCalc) {
 	if !c.flows(ins, out, 0, loss) {
 		return
 	}
-	c.res.Sgen = c.entropyFlow(ins, out) + c.heatEntropy(loss, c.s.ambient())
+	c.res.Sgen = c.entropyFlow(ins, out) + c.lossEntropy(loss)
 	c.checkSgen()
 }
 

@@ -18,6 +18,7 @@ type unitCalc struct {
 	// sIn, sOut and sHeat are the entropy flows of the unit, W/K: sum |m s| over inlets and
 	// outlets, and the largest |Q/T| of heat crossing its boundary (see checkSgen).
 	sIn, sOut, sHeat float64
+	bounds           []string // the heat crossing the boundary, in words: "the heat loss leaving at the ambient 25.000 C"
 	// rose is set once a pressure rise the unit cannot make is reported: the negative entropy
 	// generation that follows from it is not reported again.
 	rose bool
@@ -109,12 +110,19 @@ func (c *unitCalc) entropyFlow(ins, outs []int) float64 {
 
 // heatEntropy is the entropy a heat flow q (W, any sign) carries across the boundary at
 // temperature t (K); its size joins the scale checkSgen judges against.
-func (c *unitCalc) heatEntropy(q, t float64) float64 {
+// what words the heat and where it crosses, for the message of checkSgen.
+func (c *unitCalc) heatEntropy(q, t float64, what string) float64 {
 	if q == 0 {
 		return 0
 	}
 	c.sHeat = max(c.sHeat, math.Abs(q/t))
+	c.bounds = append(c.bounds, what+" "+c.s.f.q(units.Temperature, t))
 	return q / t
+}
+
+// lossEntropy is the entropy a heat loss carries out at the ambient temperature.
+func (c *unitCalc) lossEntropy(loss float64) float64 {
+	return c.heatEntropy(loss, c.s.ambient(), "the heat loss leaving at the ambient")
 }
 
 // checkSgen reports a negative entropy generation beyond what the closure tolerance allows. The
@@ -131,8 +139,12 @@ func (c *unitCalc) checkSgen() {
 	}
 	tol := c.s.relTol * max(c.sIn, c.sOut, c.sHeat)
 	if sg < -tol && !c.rose {
-		c.s.diag(model.Error, CodeEntropy, c.un.Span, fmt.Sprintf("%s is impossible: it destroys entropy (generation %s); check its givens",
-			c.name(), c.s.f.sgen(sg)))
+		with := ""
+		if len(c.bounds) > 0 {
+			with = ", with " + andList(c.bounds)
+		}
+		c.s.diag(model.Error, CodeEntropy, c.un.Span, fmt.Sprintf("%s is impossible: it destroys entropy (generation %s%s); check its givens",
+			c.name(), c.s.f.sgen(sg), with))
 	}
 }
 
