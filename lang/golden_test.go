@@ -2,7 +2,6 @@ package lang
 
 import (
 	"bytes"
-	"flag"
 	"fmt"
 	"os"
 	"path/filepath"
@@ -10,14 +9,14 @@ import (
 	"testing"
 
 	"hmb/lang/format"
+	goldenfile "hmb/lang/golden"
 	"hmb/lang/source"
 	"hmb/thermo/model"
 )
 
-var update = flag.Bool("update", false, "rewrite the golden files")
-
 // Diagnostics renders diagnostics one per line as "line:col-line:col severity CODE: message",
-// with related positions and fixes indented below; columns are 1-based bytes.
+// with related positions and fixes indented below; lines and columns 1-based, columns in code
+// points (see lang/source).
 func renderDiags(f *source.File, diags []model.Diagnostic) string {
 	var b strings.Builder
 	rng := func(s model.Span) string { return f.Position(s.Start).String() + "-" + f.Position(s.End).String() }
@@ -33,22 +32,7 @@ func renderDiags(f *source.File, diags []model.Diagnostic) string {
 	return b.String()
 }
 
-func golden(t *testing.T, path string, got []byte) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(path, got, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs from the output:\n--- got\n%s\n--- want\n%s", path, got, want)
-	}
-}
+func golden(t *testing.T, path string, got []byte) { goldenfile.Check(t, path, got) }
 
 func files(t *testing.T, dir string) []string {
 	t.Helper()

@@ -4,10 +4,9 @@ import (
 	"context"
 	"encoding/json"
 	"errors"
-	"flag"
 	"fmt"
+	goldenfile "hmb/lang/golden"
 	"hmb/lsp/cache"
-	"os"
 	"path/filepath"
 	"reflect"
 	"slices"
@@ -20,8 +19,6 @@ import (
 
 	"hmb/lang"
 )
-
-var update = flag.Bool("update", false, "rewrite the golden files in testdata")
 
 // plant is an invented test file. Its second stream's label holds a character outside the Basic
 // Multilingual Plane (two UTF-16 code units), its temperature a degree sign (one UTF-16 unit, two
@@ -264,27 +261,7 @@ func TestHoverGolden(t *testing.T) {
 
 func golden(t *testing.T, name, got string) {
 	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		if err := os.MkdirAll("testdata", 0o755); err != nil {
-			t.Fatal(err)
-		}
-		tmp := path + ".tmp"
-		if err := os.WriteFile(tmp, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.Rename(tmp, path); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if got != string(want) {
-		t.Errorf("%s differs; got:\n%s", name, got)
-	}
+	goldenfile.Check(t, filepath.Join("testdata", name), []byte(got))
 }
 
 func TestInlayHints(t *testing.T) {

@@ -3,8 +3,8 @@ package main
 import (
 	"bytes"
 	"encoding/json"
-	"flag"
 	"fmt"
+	goldenfile "hmb/lang/golden"
 	"maps"
 	"os"
 	"path/filepath"
@@ -16,26 +16,15 @@ import (
 	"hmb/thermo/units"
 )
 
-var update = flag.Bool("update", false, "rewrite the golden files of the command-line tests")
-
-// golden compares got with the file at path, or rewrites it under -update. Every golden file of
-// the command's tests goes through here.
+// golden compares got with the file at path, or rewrites it under -update: lang/golden, the one
+// golden helper of hmb's tests.
 func golden(t *testing.T, path string, got []byte) {
 	t.Helper()
-	if *update {
-		if err := writeFileAtomic(path, got); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (go test ./cmd/hmb -run %s -update creates it; review it before committing)", err, t.Name())
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs from the output (go test ./cmd/hmb -run %s -update rewrites it after review):\n%s", path, t.Name(), got)
-	}
+	goldenfile.Check(t, path, got)
 }
+
+// update reports whether this run rewrites golden files and generated sections.
+func update() bool { return goldenfile.Update() }
 
 // TestCheckGolden runs hmb check over the command-line fixtures in every output format. The
 // fixtures are invented demo calcs; the goldens are reviewed output, not references (the
@@ -390,7 +379,7 @@ func readmeSection(t *testing.T, name, want string) {
 		t.Fatalf("README.md lacks the %q and %q markers", begin, end)
 	}
 	whole := s[:i+len(begin)] + want + s[j:]
-	if *update {
+	if update() {
 		if err := writeFileAtomic("README.md", []byte(whole)); err != nil {
 			t.Fatal(err)
 		}

@@ -70,7 +70,7 @@ func TestEditorWords(t *testing.T) {
 	}
 	b = append(b, '\n')
 	path := filepath.Join(editorsDir, "tools", "words.json")
-	if *update {
+	if update() {
 		if err := writeFileAtomic(path, b); err != nil {
 			t.Fatal(err)
 		}
