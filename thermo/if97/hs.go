@@ -84,11 +84,12 @@ func solveHS(region int, h, s float64) (State, bool) {
 	case 4:
 		return domeHS(h, s)
 	case 3:
-		rho, t, ok := region3.SolveHS(h, s)
+		pt, ok := region3.PointHS(h, s)
+		rho, t := pt.Rho, pt.T
 		if !ok || t < t13 {
 			return State{}, false
 		}
-		st := state3(rho, t)
+		st := state3(pt)
 		pm := st.P * 1e-6
 		if pm > pMax*(1+1e-9) || pm < pB23(t) {
 			return State{}, false

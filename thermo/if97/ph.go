@@ -163,17 +163,17 @@ func pressureAnd(p, y float64, k second) (State, error) {
 			return mix(liq, vap, math.Min(math.Max(x, 0), 1)), nil
 		}
 	}
-	var rho, t float64
+	var pt region3.Point
 	var ok bool
 	if k == byH {
-		rho, t, ok = region3.SolvePH(pm, y)
+		pt, ok = region3.PointPH(pm, y)
 	} else {
-		rho, t, ok = region3.SolvePS(pm, y)
+		pt, ok = region3.PointPS(pm, y)
 	}
 	if !ok {
 		return State{}, fmt.Errorf("%w: region 3 at %g MPa, %s %g did not converge", ErrNoSolution, pm, k.name(), y)
 	}
-	st := state3(rho, t)
+	st := state3(pt)
 	st.P = p
 	return st, nil
 }

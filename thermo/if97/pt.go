@@ -82,18 +82,18 @@ func stateAt(pm, t float64, region int) (State, error) {
 	case 5:
 		return single(region5(pm, t), 5), nil
 	}
-	rho, ok := region3.RhoPT(pm, t)
+	pt, ok := region3.PointPT(pm, t)
 	if !ok {
 		return State{}, fmt.Errorf("%w: region 3 density at %g MPa, %g K did not converge", ErrNoSolution, pm, t)
 	}
-	st := state3(rho, t)
+	st := state3(pt)
 	st.P = pm * 1e6 // the input itself, not its reproduction to 1e-12
 	return st, nil
 }
 
-// state3 converts a region-3 (rho, T) to a State.
-func state3(rho, t float64) State {
-	pr := region3.Eval(rho, t)
+// state3 converts a solved region-3 state to a State.
+func state3(pt region3.Point) State {
+	rho, t, pr := pt.Rho, pt.T, pt.Props
 	if !(pr.DpDrho > 0) {
 		// Inside the near-critical loop of Eq. 28 (see region3.SolvePH): cp diverges at the
 		// critical point and has no value there.

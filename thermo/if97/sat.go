@@ -38,14 +38,14 @@ func satEnds(ps, t float64) (liq, vap State, err error) {
 		liq = single(region1(ps, t), 1)
 		vap = single(region2(ps, t), 2)
 	case t >= tCrit:
-		liq = state3(rhoCrit, tCrit)
+		liq = state3(region3.Point{Rho: rhoCrit, T: tCrit, Props: region3.Eval(rhoCrit, tCrit)})
 		vap = liq
 	default:
-		rl, rv, ok := region3.SatRho(t, ps)
+		l, v, ok := region3.SatPoints(t, ps)
 		if !ok {
 			return liq, vap, fmt.Errorf("%w: saturated densities at %g K did not converge", ErrNoSolution, t)
 		}
-		liq, vap = state3(rl, t), state3(rv, t)
+		liq, vap = state3(l), state3(v)
 	}
 	// Both ends carry the saturation pressure the line gives, exactly.
 	liq.P, vap.P = ps*1e6, ps*1e6

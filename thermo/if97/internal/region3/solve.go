@@ -32,14 +32,14 @@ const (
 // on the stable branches, so each evaluation tightens a bracket [lo, hi];
 // a Newton step that leaves the bracket, or an evaluation in the unstable
 // part of the loop, is replaced by bisection.
-func solveRho(p, T, rho0 float64, br branch) (float64, bool) {
+func solveRho(s *tauSums, p, T, rho0 float64, br branch) (float64, bool) {
 	if !inRange(p) || !inRange(T) || !inRange(rho0) {
 		return nan(), false
 	}
 	lo, hi := 0.0, math.Inf(1)
 	rho := rho0
 	for range maxIter1 {
-		pr, dp := pressure(rho, T)
+		pr, dp := s.pressure(rho, T)
 		if !finite(pr) || !finite(dp) {
 			return nan(), false
 		}
@@ -85,11 +85,18 @@ func solveRho(p, T, rho0 float64, br branch) (float64, bool) {
 		}
 		rho = next
 	}
-	pr, dp := pressure(rho, T)
+	pr, dp := s.pressure(rho, T)
 	if math.Abs(pr-p) <= okP*p && dp > 0 {
 		return rho, true
 	}
 	return nan(), false
+}
+
+// A Point is a solved state of the basic equation: density (kg/m3), temperature (K) and its
+// properties, so that a caller need not evaluate Eq. 28 once more at the solution.
+type Point struct {
+	Rho, T float64
+	Props
 }
 
 // RhoPT returns the density (kg/m3) at which the basic equation gives
@@ -98,11 +105,22 @@ func solveRho(p, T, rho0 float64, br branch) (float64, bool) {
 // where VPT is (region 3); ok is false if no stable root was found within
 // the iteration bound.
 func RhoPT(p, T float64) (rho float64, ok bool) {
+	pt, ok := PointPT(p, T)
+	return pt.Rho, ok
+}
+
+// PointPT is RhoPT with the properties at the density found.
+func PointPT(p, T float64) (Point, bool) {
 	v := VPT(p, T)
-	if !inRange(v) {
-		return nan(), false
+	if !inRange(v) || !inRange(T) {
+		return Point{Rho: nan(), T: nan()}, false
 	}
-	return solveRho(p, T, 1/v, anyBranch)
+	s := sumsAt(Tc / T)
+	rho, ok := solveRho(&s, p, T, 1/v, anyBranch)
+	if !ok {
+		return Point{Rho: nan(), T: nan()}, false
+	}
+	return Point{rho, T, s.props(rho, T)}, true
 }
 
 // Residual pairs of the 2-D solves.
@@ -142,9 +160,9 @@ func errNorm(r1, r2 float64) float64 {
 
 // solve2 is Newton's method in (rho, T) on the basic equation with a
 // backtracking line search on the larger relative residual.
-func solve2(pp pair, x1, x2, rho, T float64) (float64, float64, bool) {
+func solve2(pp pair, x1, x2, rho, T float64) (Point, bool) {
 	if !inRange(rho) || !inRange(T) || !finite(x1) || !finite(x2) || x1 == 0 || x2 == 0 {
-		return nan(), nan(), false
+		return Point{Rho: nan(), T: nan()}, false
 	}
 	pr := Eval(rho, T)
 	r1, r2, a11, a12, a21, a22 := residual(&pr, pp, x1, x2)
@@ -187,9 +205,9 @@ func solve2(pp pair, x1, x2, rho, T float64) (float64, float64, bool) {
 		}
 	}
 	if e <= ok2 && stable(pr.DpDrho, T) {
-		return rho, T, true
+		return Point{rho, T, pr}, true
 	}
-	return nan(), nan(), false
+	return Point{Rho: nan(), T: nan()}, false
 }
 
 // stable reports whether a state of Eq. 28 with (dp/drho)_T = dpdrho at T may be taken as a
@@ -209,12 +227,24 @@ const flatSlope = 1e-7
 // from SR3-03(2014) T(p,h) and v(p,h). Valid in region 3; ok is false if the
 // bounded Newton iteration does not converge to a mechanically stable state.
 func SolvePH(p, h float64) (rho, T float64, ok bool) {
+	pt, ok := PointPH(p, h)
+	return pt.Rho, pt.T, ok
+}
+
+// PointPH is SolvePH with the properties at the solution.
+func PointPH(p, h float64) (Point, bool) {
 	return solve2(pairPH, p, h, 1/VPH(p, h), TPH(p, h))
 }
 
 // SolvePS is SolvePH for pressure p (MPa) and entropy s (kJ/(kg K)), started
 // from SR3-03(2014) T(p,s) and v(p,s). Valid in region 3.
 func SolvePS(p, s float64) (rho, T float64, ok bool) {
+	pt, ok := PointPS(p, s)
+	return pt.Rho, pt.T, ok
+}
+
+// PointPS is SolvePS with the properties at the solution.
+func PointPS(p, s float64) (Point, bool) {
 	return solve2(pairPS, p, s, 1/VPS(p, s), TPS(p, s))
 }
 
@@ -222,9 +252,15 @@ func SolvePS(p, s float64) (rho, T float64, ok bool) {
 // pressure from SR4-04(2014) p(h,s), then T and v from SR3-03(2014) T(p,h),
 // v(p,h) as start. Valid in region 3.
 func SolveHS(h, s float64) (rho, T float64, ok bool) {
+	pt, ok := PointHS(h, s)
+	return pt.Rho, pt.T, ok
+}
+
+// PointHS is SolveHS with the properties at the solution.
+func PointHS(h, s float64) (Point, bool) {
 	p := PHS(h, s)
 	if !inRange(p) {
-		return nan(), nan(), false
+		return Point{Rho: nan(), T: nan()}, false
 	}
 	return solve2(pairHS, h, s, 1/VPH(p, h), TPH(p, h))
 }
@@ -238,10 +274,29 @@ func SolveHS(h, s float64) (rho, T float64, ok bool) {
 // ok is false outside that range or if the two roots are not distinct, except within
 // satClosed of Tc, where both densities are the one root found.
 func SatRho(T, psat float64) (rhoL, rhoV float64, ok bool) {
+	l, v, ok := SatPoints(T, psat)
+	return l.Rho, v.Rho, ok
+}
+
+// SatPoints is SatRho with the properties of both saturated states.
+func SatPoints(T, psat float64) (liq, vap Point, ok bool) {
+	rhoL, rhoV, st, ok := satRho(T, psat)
+	if !ok {
+		return Point{Rho: nan(), T: nan()}, Point{Rho: nan(), T: nan()}, false
+	}
+	liq = Point{rhoL, T, st.props(rhoL, T)}
+	vap = liq
+	if rhoV != rhoL {
+		vap = Point{rhoV, T, st.props(rhoV, T)}
+	}
+	return liq, vap, true
+}
+
+func satRho(T, psat float64) (rhoL, rhoV float64, st tauSums, ok bool) {
 	// Eq. 30 gives 22.064000000002 MPa at T = Tsat(pc) = Tc - 1.2e-9 K: a rounding, not a
 	// pressure above the critical one.
 	if !(T >= 623.15 && T < Tc) || !inRange(psat) || psat > Pc*(1+1e-12) {
-		return nan(), nan(), false
+		return nan(), nan(), st, false
 	}
 	var xl, xv byte
 	switch {
@@ -264,19 +319,20 @@ func SatRho(T, psat float64) (rhoL, rhoV float64, ok bool) {
 	default:
 		xv = 'z'
 	}
-	rl, okl := solveRho(psat, T, 1/vOf(xl, psat, T), liquid)
-	rv, okv := solveRho(psat, T, 1/vOf(xv, psat, T), vapour)
+	st = sumsAt(Tc / T)
+	rl, okl := solveRho(&st, psat, T, 1/vOf(xl, psat, T), liquid)
+	rv, okv := solveRho(&st, psat, T, 1/vOf(xv, psat, T), vapour)
 	switch {
 	case okl && okv && rl > rv:
-		return rl, rv, true
+		return rl, rv, st, true
 	case Tc-T > satClosed:
-		return nan(), nan(), false
+		return nan(), nan(), st, false
 	case okl:
-		return rl, rl, true
+		return rl, rl, st, true
 	case okv:
-		return rv, rv, true
+		return rv, rv, st, true
 	}
-	return nan(), nan(), false
+	return nan(), nan(), st, false
 }
 
 // satClosed is the distance below Tc (K) within which SatRho may return one density for
