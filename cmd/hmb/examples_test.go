@@ -176,14 +176,15 @@ func compareUnits(t *testing.T, fr *fileResult, want expectedFile) {
 }
 
 // TestExpectedCurrent re-runs expected.py and checks that expected.json is what it writes, so
-// that the reference cannot drift from the script that documents it. It needs python3-iapws:
-// skipped with a note without it, failed when HMB_REQUIRE_IAPWS=1.
+// that the reference cannot drift from the script that documents it. It needs python3-iapws
+// (and python3-numpy and python3-scipy, for the metered example's reconciliation): skipped with a
+// note without them, failed when HMB_REQUIRE_IAPWS=1.
 func TestExpectedCurrent(t *testing.T) {
-	if err := exec.Command(python3, "-c", "import iapws").Run(); err != nil {
+	if err := exec.Command(python3, "-c", "import iapws, numpy, scipy").Run(); err != nil {
 		if os.Getenv("HMB_REQUIRE_IAPWS") == "1" {
-			t.Fatalf("python3-iapws not importable and HMB_REQUIRE_IAPWS=1: %v", err)
+			t.Fatalf("python3-iapws, numpy or scipy not importable and HMB_REQUIRE_IAPWS=1: %v", err)
 		}
-		t.Skipf("python3-iapws not importable (%v); apt-get install python3-iapws to re-run expected.py", err)
+		t.Skipf("python3-iapws, numpy or scipy not importable (%v); apt-get install python3-iapws python3-numpy python3-scipy to re-run expected.py", err)
 	}
 	out := filepath.Join(t.TempDir(), "expected.json")
 	cmd := exec.Command(python3, expectedPy, out)

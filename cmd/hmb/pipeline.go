@@ -141,6 +141,9 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 	fr.table = streamTable(m, c.res, c.rec)
 	if len(c.rec.Measurements) > 0 {
 		fr.table += "\n" + alignRows(tableRows(report.ReconciliationTable(m, c.rec)))
+		if t := report.UncertaintyTable(m, c.res, c.rec); len(t.Rows) > 0 {
+			fr.table += "\n" + alignRows(tableRows(t))
+		}
 	}
 	return fr
 }

@@ -314,6 +314,48 @@ def steam_injection():
     }
 
 
+def metered_turbine():
+    """Plant readings reconciled: weighted least squares over the readings subject to the header's
+    mass balance and the turbine's energy balance, solved by testdata/reconcile/nonlinear.py's
+    reconcile (scipy SLSQP, polished by successive linearisation; numpy)."""
+    sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "reconcile"))
+    import numpy as np
+    from nonlinear import reconcile
+
+    def h_pt(p, t):
+        return IAPWS97(P=p / 1e6, T=t).h * 1e3
+
+    plant = {
+        "streams": {
+            "MS": {"flow": [18.1, 0.015 * 18.1], "p": [42 * BAR, 0.3 * BAR], "T": [C(410), 2.0]},
+            "BP": {"p": [4.5 * BAR, 0.05 * BAR], "T": [C(195.5), 2.0]},
+            "PM1": {"flow": [7.25, 0.02 * 7.25]},
+            "PM2": {"flow": [6.05, 0.02 * 6.05]},
+            "DRY": {"flow": [5.15, 0.02 * 5.15]},
+        },
+        "units": [{"kind": "turbine", "name": "TG1", "params": {"power": [7.15 * MW, 0.01 * 7.15 * MW]}}],
+    }
+    names = ["MS flow", "MS p", "MS T", "BP p", "BP T", "PM1 flow", "PM2 flow", "DRY flow", "TG1 power"]
+
+    def g(y):
+        m, p1, t1, p2, t2, m1, m2, m3, w = y
+        return np.array([m1 + m2 + m3 - m, (m * (h_pt(p1, t1) - h_pt(p2, t2)) - w) / 1e3])
+
+    ans = reconcile(plant, names, g, {})
+    y = {n: ans["measurements"][n]["reconciled"] for n in names}
+    ms = pt(y["MS p"], y["MS T"], y["MS flow"])
+    bp = pt(y["BP p"], y["BP T"], y["MS flow"])
+    branches = {n: pt(y["BP p"], y["BP T"], y[n + " flow"]) for n in ("PM1", "PM2", "DRY")}
+    streams = {"MS": ms, "BP": bp, **branches}
+    units = {
+        "TG1": {"W": y["TG1 power"], "S_gen": sflow([bp], [ms])},
+        "HDR": {"S_gen": sflow(list(branches.values()), [bp])},
+    }
+    rec = {"redundancy": ans["redundancy"], "chi2": ans["chi2"], "measurements": [
+        {"name": n.split()[0], "property": n.split()[1], **ans["measurements"][n]} for n in names]}
+    return streams, units, rec
+
+
 EXAMPLES = {
     "condensing_turbine.hmb": condensing_turbine,
     "deaerator.hmb": deaerator,
@@ -328,6 +370,7 @@ EXAMPLES = {
     "steam_header.hmb": steam_header,
     "district_heat_blend.hmb": district_heat_blend,
     "steam_injection.hmb": steam_injection,
+    "metered_turbine.hmb": metered_turbine,
 }
 
 
@@ -336,7 +379,7 @@ def main():
     out = sys.argv[1] if len(sys.argv) > 1 else os.path.join(here, "expected.json")
     files = {}
     for name, calc in EXAMPLES.items():
-        streams, units = calc()
+        streams, units, *rec = calc()
         for n, s in streams.items():
             if s.m is None or not all(math.isfinite(v) for v in (s.m, s.p, s.T, s.h, s.s)):
                 raise SystemExit("%s: stream %s not fully solved" % (name, n))
@@ -344,6 +387,8 @@ def main():
             "streams": {n: s.json() for n, s in streams.items()},
             "units": units,
         }
+        if rec:  # a metered plant: its readings' reconciliation
+            files[name]["reconciliation"] = rec[0]
     doc = {
         "generator": "testdata/examples/expected.py, python3-iapws %s" % iapws.__version__,
         "units": "SI base: m kg/s, p Pa, T K, h J/kg, s J/(kg K), x fraction (null single phase), Q and W in W, S_gen in W/K",

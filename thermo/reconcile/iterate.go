@@ -16,32 +16,37 @@ import (
 
 // iteration reconciles the measurements among the solved equations.
 //
-// The unknowns x are parametrised by the corrections of the d measurements the solver matched
-// to unknowns: with those corrections a fixed, the matched equations fix x (the matched Jacobian
-// is square and regular where the solver converged). Every other equation is left over: a
-// leftover measurement adds a correction to the objective, a leftover balance must hold. Each
-// step linearises all of them at the current values (Gauss-Newton for the objective, Newton for
-// the equations), solves the linear reconciliation (step.solve) and moves x; the iteration ends
-// when the step no longer changes any normalised correction and every equation holds to 1e-9 of
-// its scale.
+// The unknowns x are parametrised by the values of the d measurements the solver matched to
+// unknowns: with those held, the matched equations fix x (their Jacobian is square, regular
+// where the solver converged, and block lower triangular in the solver's order, so it is solved
+// block by block). Every other equation is left over: a leftover measurement adds a correction,
+// a leftover balance must hold. Each step linearises all of them at the current values
+// (Gauss-Newton for the corrections, Newton for the equations), solves the linear
+// reconciliation (minNorm) and moves x; the iteration ends when the step changes no normalised
+// correction by more than 1e-7 and every equation holds to 1e-9 of its scale.
 type iteration struct {
 	r       *run
 	a       *solve.Adjustment
-	matched []int     // equations solved for an unknown; row i of the matched Jacobian
-	ms      []*measEq // the d matched measurements, then the leftover ones
-	d       int
+	matched []int   // equations solved for an unknown; position i is column r.cols of its unknown
+	blocks  [][]int // matched equations in the solver's blocks, in solving order
+	ms      []*measEq
+	d       int   // the first d of ms are matched
 	cons    []int // leftover equations that are not measurements
 	// judged are the leftover equations of cons the measurements move: the rest are identities
 	// (a closed loop's last mass balance) or involve exact givens only, left to the solver.
 	judged []int
-	x0     []float64   // the solver's values, restored when the reconciliation fails
-	sol    *stepResult // the linear problem at the reconciled values
-	xs     *mat.Dense  // solved unknowns × d: change of x per unit change of w
+	x0     []float64 // the solver's values, restored when the reconciliation fails
+	colSc  []float64
+	// At the reconciled values: the linear problem's statistics, and the change of the solved
+	// unknowns per unit change of each matched measurement's normalised value (unknowns × d).
+	st *stats
+	y  []float64 // unknowns in column order × (1 + d): the Newton step, then the change per unit of each matched measurement's normalised value, SI
+	// buffers reused from step to step
+	ybuf, cmbuf []float64
 	// before holds the mismatch of each judged balance at the solver's values and the 95 %
 	// half-width the measurements' uncertainties give it.
 	before map[int][2]float64
 	iters  int
-	colSc  []float64
 	out    []Measurement // the measurements in the order of ms
 	order  []int         // the file's order of out
 }
@@ -62,38 +67,32 @@ func (it *iteration) run(ctx context.Context) bool {
 		if !ok {
 			return false
 		}
-		sol, ok := lin.p.solve()
-		if !ok {
-			it.fail(model.Span{}, "the reconciliation's least-squares problem could not be factorised")
+		if it.iters == 1 && lin.sol.miss > 1e-6 {
+			it.conflict()
 			return false
 		}
-		if it.iters == 1 && sol.miss > 1e-6 {
-			it.conflict(lin, sol)
-			return false
-		}
-		it.sol, it.xs = sol, lin.xs
 		// Move: corrections, then the unknowns along the matched equations.
 		step := 0.0
-		for k := 0; k < it.d; k++ {
-			it.ms[k].corr += it.ms[k].sigma * sol.w[k]
-			step = max(step, math.Abs(sol.w[k]))
+		w := make([]float64, it.d)
+		for k, m := range it.ms[:it.d] {
+			w[k] = lin.sol.v[k] - m.corr/m.sigma
+			m.corr = lin.sol.v[k] * m.sigma
+			step = max(step, math.Abs(w[k]))
 		}
+		d, n := it.d, len(it.matched)
 		for v, c := range it.r.cols {
-			if c < 0 {
+			if c < 0 || c >= n {
 				continue
 			}
-			dx := lin.dx0[v]
-			step = max(step, math.Abs(dx)/it.colSc[v])
-			for k := 0; k < it.d; k++ {
-				dx += lin.xs.At(c, k) * sol.w[k]
+			row := lin.y[c*(1+d) : (c+1)*(1+d)]
+			dx := row[0]
+			for k, wk := range w {
+				dx += row[1+k] * wk
 			}
 			a.X[v] += dx
 		}
 		if step <= stepTol && it.holds(a.X) {
-			for _, m := range it.ms[it.d:] {
-				r, _, _ := a.System.Residual(m.eq, a.X)
-				m.corr = r
-			}
+			it.st, it.y = lin.sol.statistics(), lin.y
 			return true
 		}
 	}
@@ -137,167 +136,228 @@ func typical(d units.Dim) float64 {
 	return 1
 }
 
-// linear is one linearisation.
+// linear is one linearisation and its solution.
 type linear struct {
-	p   *step
-	xs  *mat.Dense
-	dx0 []float64 // Newton step of the matched equations with the corrections held
-	sc  map[int]float64
-	b   map[int]float64 // leftover residuals after dx0
-	arw map[int][]float64
+	sol *lsq
+	// y holds, for each solved unknown in column order, the Newton step of the matched
+	// equations with the measurements held, then its change per unit change of each matched
+	// measurement's normalised value (row-major, 1 + d per unknown), SI.
+	y []float64
+}
+
+// entry is one nonzero of a row of the Jacobian: the column of a solved unknown.
+type entry struct {
+	col int
+	val float64
 }
 
 func (it *iteration) linearise(x []float64, first bool) (*linear, bool) {
 	sys := it.a.System
 	cols := it.r.cols
-	n := len(it.matched)
-	row := make(map[int]int, n)
+	n, d := len(it.matched), it.d
+	pos := make(map[int]int, n) // matched equation -> its position
 	for i, e := range it.matched {
-		row[e] = i
+		pos[e] = i
 	}
-	lin := &linear{sc: map[int]float64{}, b: map[int]float64{}, arw: map[int][]float64{}}
-	res := make([]float64, n)
-	corrOf := map[int]float64{}
-	for _, m := range it.ms[:it.d] {
-		corrOf[m.eq] = m.corr
-	}
-	for i, e := range it.matched {
-		r, sc, err := sys.Residual(e, x)
-		if err != nil {
-			it.fail(sys.Eqs[e].Span, "cannot evaluate "+sys.Eqs[e].Label+" while reconciling: "+err.Error())
-			return nil, false
-		}
-		res[i] = (r - corrOf[e]) / sc
-		lin.sc[e] = sc
-	}
-	leftover := make([]int, 0, len(it.ms)-it.d+len(it.cons))
-	for _, m := range it.ms[it.d:] {
+	leftover := make([]int, 0, len(it.ms)-d+len(it.cons))
+	for _, m := range it.ms[d:] {
 		leftover = append(leftover, m.eq)
 	}
 	leftover = append(leftover, it.cons...)
-	lrow := map[int][]solve.Entry{}
-	for _, e := range leftover {
-		r, sc, err := sys.Residual(e, x)
+	rows := make(map[int][]entry, n+len(leftover))
+	res := make(map[int]float64, n+len(leftover))
+	sc := make(map[int]float64, n+len(leftover))
+	for _, e := range append(append([]int(nil), it.matched...), leftover...) {
+		r, s, err := sys.Residual(e, x)
 		if err != nil {
 			it.fail(sys.Eqs[e].Span, "cannot evaluate "+sys.Eqs[e].Label+" while reconciling: "+err.Error())
 			return nil, false
 		}
-		lin.b[e], lin.sc[e] = r, sc
-		lrow[e] = nil
+		res[e], sc[e] = r, s
+		rows[e] = nil
 	}
-	js := mat.NewDense(n, n, nil)
+	for _, m := range it.ms[:d] {
+		res[m.eq] -= m.corr
+	}
 	for _, en := range sys.Jacobian(x) {
-		i, isRow := row[en.Row]
-		_, isLeft := lrow[en.Row]
-		if !isRow && !isLeft {
+		if _, ok := rows[en.Row]; !ok {
 			continue
 		}
 		if math.IsNaN(en.Val) || math.IsInf(en.Val, 0) {
 			it.fail(sys.Eqs[en.Row].Span, "cannot differentiate "+sys.Eqs[en.Row].Label+" while reconciling")
 			return nil, false
 		}
-		if isLeft {
-			lrow[en.Row] = append(lrow[en.Row], en)
-			continue
-		}
-		if c := cols[en.Col]; c >= 0 {
-			js.Set(i, c, js.At(i, c)+en.Val*it.colSc[en.Col]/lin.sc[en.Row])
+		if c := cols[en.Col]; c >= 0 && en.Val != 0 {
+			rows[en.Row] = append(rows[en.Row], entry{c, en.Val})
 		}
 	}
-	var lu mat.LU
-	lu.Factorize(js)
-	if lu.Cond() > condMax {
-		it.singular(js)
-		return nil, false
-	}
-	d := it.d
-	rhs := mat.NewDense(n, 1+d, nil)
-	for i := range res {
-		rhs.Set(i, 0, -res[i])
-	}
-	for k, m := range it.ms[:d] {
-		rhs.Set(m.row, 1+k, m.sigma/lin.sc[m.eq])
-	}
-	var y mat.Dense
-	if err := lu.SolveTo(&y, false, rhs); err != nil {
-		it.singular(js)
-		return nil, false
-	}
-	lin.dx0 = make([]float64, len(x))
-	xs := mat.NewDense(n, max(d, 1), nil)
+	// Solve the matched equations block by block, scaled (rows by their residual scale, columns
+	// by their unknown's), for the right-hand sides [-residual | σ of each matched measurement].
+	w := 1 + d
+	colSc := make([]float64, n)
 	for v, c := range cols {
-		if c < 0 {
-			continue
-		}
-		lin.dx0[v] = it.colSc[v] * y.At(c, 0)
-		for k := 0; k < d; k++ {
-			xs.Set(c, k, it.colSc[v]*y.At(c, 1+k))
+		if c >= 0 && c < n {
+			colSc[c] = it.colSc[v]
 		}
 	}
-	lin.xs = xs
-	// Leftover rows: b + A w.
-	for _, e := range leftover {
-		arow := make([]float64, d)
-		for _, en := range lrow[e] {
-			c := cols[en.Col]
-			if c < 0 {
-				continue
+	if cap(it.ybuf) < n*w {
+		it.ybuf = make([]float64, n*w)
+	}
+	y := it.ybuf[:n*w] // the solution, by column position, SI
+	measOf := make(map[int]int, d)
+	for k, m := range it.ms[:d] {
+		measOf[m.eq] = k
+	}
+	rhs := make([]float64, w)
+	for _, blk := range it.blocks {
+		k := len(blk)
+		if k == 1 { // most blocks: one equation in its one unknown
+			e := blk[0]
+			i := pos[e]
+			yi := y[i*w : (i+1)*w]
+			clear(yi)
+			yi[0] = -res[e]
+			if mk, ok := measOf[e]; ok {
+				yi[1+mk] = it.ms[mk].sigma
 			}
-			lin.b[e] += en.Val * lin.dx0[en.Col]
-			for k := 0; k < d; k++ {
-				arow[k] += en.Val * xs.At(c, k)
+			diag := 0.0
+			for _, en := range rows[e] {
+				if en.col == i {
+					diag += en.val
+					continue
+				}
+				yr := y[en.col*w : (en.col+1)*w]
+				for q := range yi {
+					yi[q] -= en.val * yr[q]
+				}
+			}
+			if !(math.Abs(diag)*colSc[i] > sc[e]/condMax) {
+				it.singular(blk)
+				return nil, false
+			}
+			for q := range yi {
+				yi[q] /= diag
+			}
+			continue
+		}
+		in := make(map[int]int, k) // column position -> index in the block
+		for j, e := range blk {
+			in[pos[e]] = j
+		}
+		b := mat.NewDense(k, w, nil)
+		jb := mat.NewDense(k, k, nil)
+		for j, e := range blk {
+			clear(rhs)
+			rhs[0] = -res[e]
+			if mk, ok := measOf[e]; ok {
+				rhs[1+mk] = it.ms[mk].sigma
+			}
+			for _, en := range rows[e] {
+				if jj, ok := in[en.col]; ok {
+					jb.Set(j, jj, jb.At(j, jj)+en.val*colSc[en.col]/sc[e])
+					continue
+				}
+				yr := y[en.col*w : (en.col+1)*w]
+				for q := range rhs {
+					rhs[q] -= en.val * yr[q]
+				}
+			}
+			for q := range rhs {
+				b.Set(j, q, rhs[q]/sc[e])
 			}
 		}
-		lin.arw[e] = arow
+		var sol mat.Dense
+		var lu mat.LU
+		lu.Factorize(jb)
+		if lu.Cond() > condMax {
+			it.singular(blk)
+			return nil, false
+		}
+		if err := lu.SolveTo(&sol, false, b); err != nil {
+			it.singular(blk)
+			return nil, false
+		}
+		for j, e := range blk {
+			c := pos[e]
+			yr := y[c*w : (c+1)*w]
+			for q, v := range sol.RawRowView(j) {
+				yr[q] = v * colSc[c]
+			}
+		}
+	}
+	lin := &linear{y: y}
+	// Leftover rows: their residual after dx0 (b) and their change per unit w (arow).
+	b := make(map[int]float64, len(leftover))
+	arow := make(map[int][]float64, len(leftover))
+	for _, e := range leftover {
+		ar := make([]float64, d)
+		be := res[e]
+		for _, en := range rows[e] {
+			yr := y[en.col*w : (en.col+1)*w]
+			be += en.val * yr[0]
+			for k := range ar {
+				ar[k] += en.val * yr[1+k]
+			}
+		}
+		b[e], arow[e] = be, ar
 	}
 	if first {
 		it.before = map[int][2]float64{}
 		for _, e := range it.cons {
 			infl := 0.0
-			for _, v := range lin.arw[e] {
+			for _, v := range arow[e] {
 				infl = max(infl, math.Abs(v))
 			}
-			if infl > 1e-11*lin.sc[e] {
+			if infl > 1e-11*sc[e] {
 				it.judged = append(it.judged, e)
-				it.before[e] = [2]float64{lin.b[e], Coverage * norm(lin.arw[e])}
+				it.before[e] = [2]float64{b[e], Coverage * rowNorm(arow[e])}
 			}
 		}
 	}
-	p := &step{d: d, k: make([]float64, len(it.ms))}
-	for k, m := range it.ms[:d] {
-		p.k[k] = m.corr / m.sigma
+	// C v = c over all measurements' normalised corrections v (the d matched ones first): a
+	// leftover measurement l reads v_l - (a_l/σ_l)·v_M = (b_l - a_l·v_M0)/σ_l, a judged balance
+	// (a_e/s_e)·v_M = (a_e·v_M0 - b_e)/s_e, where v_M0 are the matched corrections now.
+	m := len(it.ms)
+	v0 := make([]float64, d)
+	for k, ms := range it.ms[:d] {
+		v0[k] = ms.corr / ms.sigma
 	}
-	if nl := len(it.ms) - d; nl > 0 && d > 0 {
-		p.am = mat.NewDense(nl, d, nil)
+	nr := m - d + len(it.judged)
+	if cap(it.cmbuf) < nr*m {
+		it.cmbuf = make([]float64, nr*m)
 	}
-	for i, m := range it.ms[d:] {
-		p.k[d+i] = lin.b[m.eq] / m.sigma
-		if p.am != nil {
-			for k, v := range lin.arw[m.eq] {
-				p.am.Set(i, k, v/m.sigma)
-			}
+	cm := it.cmbuf[:nr*m]
+	clear(cm)
+	c := make([]float64, nr)
+	for i, ms := range it.ms[d:] {
+		row := cm[i*m : (i+1)*m]
+		ar := arow[ms.eq]
+		dot := 0.0
+		for k := 0; k < d; k++ {
+			row[k] = -ar[k] / ms.sigma
+			dot += ar[k] * v0[k]
 		}
+		row[d+i] = 1
+		c[i] = (b[ms.eq] - dot) / ms.sigma
 	}
-	if len(it.judged) > 0 && d > 0 {
-		p.ac = mat.NewDense(len(it.judged), d, nil)
-		p.bc = make([]float64, len(it.judged))
-		for i, e := range it.judged {
-			p.bc[i] = lin.b[e] / lin.sc[e]
-			for k, v := range lin.arw[e] {
-				p.ac.Set(i, k, v/lin.sc[e])
-			}
+	for j, e := range it.judged {
+		i := m - d + j
+		row := cm[i*m : (i+1)*m]
+		ar := arow[e]
+		dot := 0.0
+		for k := 0; k < d; k++ {
+			row[k] = ar[k] / sc[e]
+			dot += ar[k] * v0[k]
 		}
+		c[i] = (dot - b[e]) / sc[e]
 	}
-	lin.p = p
+	sol, ok := minNorm(cm, c, m)
+	if !ok {
+		it.fail(model.Span{}, "the reconciliation's least-squares problem could not be factorised")
+		return nil, false
+	}
+	lin.sol = sol
 	return lin, true
-}
-
-func norm(v []float64) float64 {
-	s := 0.0
-	for _, x := range v {
-		s += x * x
-	}
-	return math.Sqrt(s)
 }
 
 // fail reports why the measurements could not be reconciled.
@@ -306,7 +366,7 @@ func (it *iteration) fail(span model.Span, msg string, rel ...model.Related) {
 }
 
 // conflict reports leftover balances that contradict each other whatever the meters read.
-func (it *iteration) conflict(lin *linear, sol *stepResult) {
+func (it *iteration) conflict() {
 	sys := it.a.System
 	var labels []string
 	var rel []model.Related
@@ -321,49 +381,73 @@ func (it *iteration) conflict(lin *linear, sol *stepResult) {
 	it.fail(span, "the measurements cannot be reconciled: "+andList(labels)+" contradict each other whatever the meters read; check the exact givens they involve", rel...)
 }
 
-// singular reports unknowns that the equations do not fix separately at the solved values: the
-// direction of the matched Jacobian's smallest singular value names them.
-func (it *iteration) singular(js *mat.Dense) {
+// singular reports a block of equations that does not fix its unknowns at the current values:
+// the direction of the block Jacobian's smallest singular value names them.
+func (it *iteration) singular(blk []int) {
 	sys := it.a.System
-	var svd mat.SVD
 	var names []string
 	var rel []model.Related
 	span := model.Span{}
-	if svd.Factorize(js, mat.SVDThin) {
-		var v mat.Dense
-		svd.VTo(&v)
-		n, _ := v.Dims()
-		type comp struct {
-			v int
-			w float64
+	vars := make([]int, len(blk))
+	for j, e := range blk {
+		vars[j] = it.a.Matched[e]
+	}
+	weight := make([]float64, len(vars))
+	for j := range weight {
+		weight[j] = 1
+	}
+	if len(blk) > 1 {
+		// The block's Jacobian, unscaled, is enough to say which unknowns move together.
+		jb := mat.NewDense(len(blk), len(blk), nil)
+		idx := map[int]int{}
+		for j, v := range vars {
+			idx[v] = j
 		}
-		var cs []comp
-		for u, c := range it.r.cols {
-			if c >= 0 {
-				cs = append(cs, comp{u, math.Abs(v.At(c, n-1))})
+		for _, en := range sys.Jacobian(it.a.X) {
+			for j, e := range blk {
+				if en.Row == e {
+					if jj, ok := idx[en.Col]; ok {
+						jb.Set(j, jj, en.Val*it.colSc[en.Col])
+					}
+				}
 			}
 		}
-		sort.SliceStable(cs, func(i, j int) bool { return cs[i].w > cs[j].w })
-		for _, c := range cs {
-			if c.w < 0.1*cs[0].w || len(names) == 4 {
-				break
-			}
-			vr := sys.Vars[c.v]
-			names = append(names, vr.Name)
-			sp := it.r.varSpan(vr)
-			if len(names) == 1 {
-				span = sp
-			} else {
-				rel = append(rel, model.Related{Span: sp, Message: vr.Name + " is one of them"})
+		var svd mat.SVD
+		if svd.Factorize(jb, mat.SVDThin) {
+			var v mat.Dense
+			svd.VTo(&v)
+			for j := range weight {
+				weight[j] = math.Abs(v.At(j, len(blk)-1))
 			}
 		}
 	}
-	if len(names) == 0 {
-		it.fail(span, "the measurements cannot be reconciled: at the solved values the equations do not fix every unknown")
-		return
+	order := make([]int, len(vars))
+	for j := range order {
+		order[j] = j
 	}
-	it.r.diag(it.a, model.Error, CodeNotReconciled, span, "the measurements cannot be reconciled: at the solved values the equations fix only a combination of "+andList(names)+
-		", not each of them; a meter on one of them would tell them apart", rel...)
+	sort.SliceStable(order, func(i, j int) bool { return weight[order[i]] > weight[order[j]] })
+	for _, j := range order {
+		if weight[j] < 0.1*weight[order[0]] || len(names) == 4 {
+			break
+		}
+		vr := sys.Vars[vars[j]]
+		names = append(names, vr.Name)
+		sp := it.r.varSpan(vr)
+		if len(names) == 1 {
+			span = sp
+		} else {
+			rel = append(rel, model.Related{Span: sp, Message: vr.Name + " is one of them"})
+		}
+	}
+	var labels []string
+	for _, e := range blk {
+		labels = append(labels, sys.Eqs[e].Label)
+	}
+	what := "fix only a combination of " + andList(names) + ", not each of them"
+	if len(names) == 1 {
+		what = "do not fix " + names[0] + " (a value that does not change what they measure)"
+	}
+	it.fail(span, "the measurements cannot be reconciled: at the solved values "+andList(labels)+" "+what+"; a measurement of another kind, or on another stream, would", rel...)
 }
 
 // varSpan is where an unknown's stream or unit is declared.

@@ -64,13 +64,16 @@ func (r *run) propagate(res *solve.Result) {
 				acc[k] += grad[i] * l
 			}
 		}
-		return Coverage * norm(acc)
+		return Coverage * rowNorm(acc)
 	}
-	shadow := &solve.Result{Streams: make([]solve.StreamResult, len(m.Streams)), Units: make([]solve.UnitResult, len(m.Units))}
+	ev := res.Evaluator()
+	if ev == nil {
+		return
+	}
 	xp := append([]float64(nil), x...)
-	// derive fills u (one entry per result name) for a subject whose results at xp are set in
-	// shadow by at(xp) (false when they cannot be evaluated there).
-	derive := func(sub model.Subject, names []model.ResultSpec, vars []int, at func([]float64) bool, u []float64) {
+	// derive fills u (one entry per result name) for a subject, from its results at values of
+	// the unknowns vars moved one at a time.
+	derive := func(sub model.Subject, names []model.ResultSpec, vars []int, u []float64) {
 		vals := make([]float64, len(names))
 		for k, spec := range names {
 			vals[k], _, _ = res.Value(m, sub, spec.Name)
@@ -84,11 +87,11 @@ func (r *run) propagate(res *solve.Result) {
 			h := 1e-6 * max(math.Abs(x[v]), typical(sys.Vars[v].Dim))
 			for side, sign := range []float64{1, -1} {
 				xp[v] = x[v] + sign*h
-				ok := at(xp)
+				at := ev.At(sub, xp)
 				for k, spec := range names {
 					val := nan
-					if ok {
-						val, _, _ = shadow.Value(m, sub, spec.Name)
+					if at != nil {
+						val, _, _ = at.Value(m, sub, spec.Name)
 					}
 					if side == 0 {
 						hi[k] = val
@@ -123,11 +126,7 @@ func (r *run) propagate(res *solve.Result) {
 			}
 		}
 		sub := model.Subject{Kind: model.StreamSubject, Index: i}
-		derive(sub, model.StreamResults, vars, func(xp []float64) bool {
-			sr, ok := res.StreamAt(i, xp)
-			shadow.Streams[i] = sr
-			return ok
-		}, out.streamU[i])
+		derive(sub, model.StreamResults, vars, out.streamU[i])
 	}
 	for ui, un := range m.Units {
 		if un == nil || un.Kind == nil {
@@ -150,11 +149,7 @@ func (r *run) propagate(res *solve.Result) {
 			add(sys.UnitVar(ui, ps.Name))
 		}
 		sub := model.Subject{Kind: model.UnitSubject, Index: ui}
-		derive(sub, un.Kind.Results, vars, func(xp []float64) bool {
-			ur, ok := res.UnitAt(ui, xp)
-			shadow.Units[ui] = ur
-			return ok
-		}, out.unitU[ui])
+		derive(sub, un.Kind.Results, vars, out.unitU[ui])
 	}
 }
 

@@ -109,11 +109,11 @@ type run struct {
 }
 
 // Limits of the iteration. A reconciliation converges when the change of every normalised
-// correction is below stepTol and every equation holds to resTol relative to its scale (the
-// solver's own convergence test).
+// correction is below stepTol (a ten-millionth of a standard deviation) and every equation holds
+// to resTol relative to its scale (the solver's own convergence test).
 const (
 	maxIter = 50
-	stepTol = 1e-9
+	stepTol = 1e-7
 	resTol  = 1e-9
 	// condMax is the condition number of the scaled matched Jacobian above which the solved
 	// values are taken as not fixed by the equations (singular).
@@ -180,7 +180,21 @@ func (r *run) adjust(ctx context.Context, a *solve.Adjustment) {
 	if len(ms) == 0 || len(matched) == 0 {
 		return
 	}
-	it := &iteration{r: r, a: a, matched: matched, ms: ms, d: d, cons: cons}
+	pos := make(map[int]bool, len(matched))
+	for _, e := range matched {
+		pos[e] = true
+	}
+	var blocks [][]int
+	for _, blk := range a.Blocks {
+		all := true
+		for _, e := range blk {
+			all = all && pos[e]
+		}
+		if all {
+			blocks = append(blocks, blk)
+		}
+	}
+	it := &iteration{r: r, a: a, matched: matched, blocks: blocks, ms: ms, d: d, cons: cons}
 	if !it.run(ctx) {
 		r.out.Reconciled, r.out.Passed = false, false
 		r.lx = nil
@@ -196,10 +210,14 @@ func (r *run) adjust(ctx context.Context, a *solve.Adjustment) {
 	}
 	r.measurements(it, true)
 	r.verdict(it, a)
-	if it.sol.q > 0 && it.d > 0 {
-		n, _ := it.xs.Dims()
-		r.lx = mat.NewDense(n, it.sol.q, nil)
-		r.lx.Mul(it.xs.Slice(0, n, 0, it.d), it.sol.nr)
+	// Cov(x) = xs Cov(v_M) xsᵀ with xs the change of x per unit of each matched measurement's
+	// normalised value and Cov(v_M) = q2_M q2_Mᵀ, the matched rows of q2.
+	if q2 := it.st.q2; q2 != nil && it.d > 0 {
+		n := len(matched)
+		_, q := q2.Dims()
+		xs := mat.NewDense(n, 1+it.d, it.y).Slice(0, n, 1, 1+it.d)
+		r.lx = mat.NewDense(n, q, nil)
+		r.lx.Mul(xs, q2.Slice(0, it.d, 0, q))
 	}
 }
 

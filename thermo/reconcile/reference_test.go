@@ -13,18 +13,32 @@ import (
 
 const python3 = "/usr/bin/python3" // Debian's interpreter, where python3-numpy installs
 
-// TestLinearCurrent re-runs linear.py and checks that linear.json holds its answers: skipped with
-// a note without numpy, failed when HMB_REQUIRE_NUMPY=1.
-func TestLinearCurrent(t *testing.T) {
-	if err := exec.Command(python3, "-c", "import numpy").Run(); err != nil {
-		if os.Getenv("HMB_REQUIRE_NUMPY") == "1" {
-			t.Fatalf("numpy not importable and HMB_REQUIRE_NUMPY=1: %v", err)
-		}
-		t.Skipf("numpy not importable (%v); apt-get install python3-numpy to re-run linear.py", err)
+// TestReferencesCurrent re-runs the scripts of testdata/reconcile and checks that the JSON
+// beside each holds its answers: skipped with a note when Debian's python3-numpy (and, for the
+// non-linear cases, python3-scipy and python3-iapws) are missing, failed then when
+// HMB_REQUIRE_NUMPY=1.
+func TestReferencesCurrent(t *testing.T) {
+	for _, ref := range []struct {
+		script, json, imports string
+		tol                   float64 // relative; another library release may differ in the last digits
+	}{
+		{"linear.py", "linear.json", "import numpy", 1e-9},
+		{"nonlinear.py", "nonlinear.json", "import numpy, scipy, iapws", 1e-7},
+	} {
+		t.Run(ref.script, func(t *testing.T) { referenceCurrent(t, ref.script, ref.json, ref.imports, ref.tol) })
 	}
-	out := filepath.Join(t.TempDir(), "linear.json")
-	if b, err := exec.Command(python3, "../../testdata/reconcile/linear.py", out).CombinedOutput(); err != nil {
-		t.Fatalf("linear.py: %v\n%s", err, b)
+}
+
+func referenceCurrent(t *testing.T, script, committedJSON, imports string, relTol float64) {
+	if err := exec.Command(python3, "-c", imports).Run(); err != nil {
+		if os.Getenv("HMB_REQUIRE_NUMPY") == "1" {
+			t.Fatalf("%s fails and HMB_REQUIRE_NUMPY=1: %v", imports, err)
+		}
+		t.Skipf("%s fails (%v); apt-get install python3-numpy python3-scipy python3-iapws to re-run %s", imports, err, script)
+	}
+	out := filepath.Join(t.TempDir(), committedJSON)
+	if b, err := exec.Command(python3, "../../testdata/reconcile/"+script, out).CombinedOutput(); err != nil {
+		t.Fatalf("%s: %v\n%s", script, err, b)
 	}
 	read := func(p string) any {
 		b, err := os.ReadFile(p)
@@ -37,7 +51,7 @@ func TestLinearCurrent(t *testing.T) {
 		}
 		return v
 	}
-	fresh, committed := read(out), read("../../testdata/reconcile/linear.json")
+	fresh, committed := read(out), read("../../testdata/reconcile/"+committedJSON)
 	// Numbers, not bytes: another numpy may differ in the last digits, and the Monte Carlo
 	// probabilities in their third.
 	var diff func(path string, a, b any)
@@ -46,7 +60,7 @@ func TestLinearCurrent(t *testing.T) {
 		case map[string]any:
 			bm, ok := b.(map[string]any)
 			if !ok || len(a) != len(bm) {
-				t.Errorf("%s: linear.py and linear.json differ in shape", path)
+				t.Errorf("%s: %s and %s differ in shape", path, script, committedJSON)
 				return
 			}
 			for k, v := range a {
@@ -55,7 +69,7 @@ func TestLinearCurrent(t *testing.T) {
 		case []any:
 			bs, ok := b.([]any)
 			if !ok || len(a) != len(bs) {
-				t.Errorf("%s: linear.py and linear.json differ in shape", path)
+				t.Errorf("%s: %s and %s differ in shape", path, script, committedJSON)
 				return
 			}
 			for i := range a {
@@ -63,20 +77,20 @@ func TestLinearCurrent(t *testing.T) {
 			}
 		case float64:
 			bf, ok := b.(float64)
-			tol := 1e-9 * max(math.Abs(a), math.Abs(bf))
+			tol := relTol * max(math.Abs(a), math.Abs(bf))
 			if strings.HasPrefix(path, ".simulation.p_found_first.") {
 				tol = 0.03
 			}
 			if !ok || math.Abs(a-bf) > tol {
-				t.Errorf("%s: linear.py gives %v, linear.json holds %v: re-run it", path, a, b)
+				t.Errorf("%s: %s gives %v, %s holds %v: re-run it", path, script, a, committedJSON, b)
 			}
 		case string:
 			if path != ".generator" && a != b {
-				t.Errorf("%s: linear.py gives %q, linear.json holds %q", path, a, b)
+				t.Errorf("%s: %s gives %q, %s holds %q", path, script, a, committedJSON, b)
 			}
 		default:
 			if a != b {
-				t.Errorf("%s: linear.py gives %v, linear.json holds %v", path, a, b)
+				t.Errorf("%s: %s gives %v, %s holds %v", path, script, a, committedJSON, b)
 			}
 		}
 	}

@@ -48,9 +48,12 @@ func (r *run) measurements(it *iteration, ok bool) {
 		if ok {
 			res, _, _ := sys.Residual(m.eq, r.x)
 			ms.Reconciled = m.g.Value + res
-			rho := it.sol.rho[i]
+			rho := it.st.rho[i]
 			ms.Share = rho
-			ms.UReconciled = Coverage * m.sigma * math.Sqrt(max(0, 1-rho))
+			ms.UReconciled = m.g.Tol
+			if it.st.q2 != nil {
+				ms.UReconciled = Coverage * m.sigma * rowNorm(it.st.q2.RawRowView(i))
+			}
 			if rho > shareMin {
 				ms.Checked = true
 				ms.Test = math.Abs(res) / (m.sigma * math.Sqrt(rho))
@@ -82,7 +85,7 @@ func (r *run) measurements(it *iteration, ok bool) {
 func (r *run) verdict(it *iteration, a *solve.Adjustment) {
 	out := r.out
 	nm := len(it.ms)
-	out.Redundancy = nm - it.sol.q
+	out.Redundancy = it.st.rank
 	for _, m := range it.out {
 		v := (m.Reconciled - m.Measured) / m.Given.Sigma()
 		out.Chi2 += v * v
@@ -103,7 +106,7 @@ func (r *run) verdict(it *iteration, a *solve.Adjustment) {
 	twin := func(i int) []int { // measurements whose correction cannot be told from i's
 		var t []int
 		for j := range it.out {
-			if j != i && it.out[j].Checked && math.Abs(it.sol.corr(i, j)) > twins {
+			if j != i && it.out[j].Checked && math.Abs(it.st.corr(i, j)) > twins {
 				t = append(t, j)
 			}
 		}
@@ -174,7 +177,7 @@ func (r *run) verdict(it *iteration, a *solve.Adjustment) {
 			verdict = "part of the failed global test"
 		}
 		r.diag(a, model.Info, CodeBalanceWithin, eq.Span, fmt.Sprintf("%s is over-determined by measurements and %s: the readings miss it by %s, %s the ± %s their uncertainties allow",
-			eq.Label, verdict, r.uncertainty(eq.Dim, math.Abs(b[0]), ""), within, r.uncertainty(eq.Dim, b[1], "")))
+			eq.Label, verdict, r.mismatch(eq.Dim, math.Abs(b[0])), within, r.mismatch(eq.Dim, b[1])))
 	}
 	if out.Passed && out.Redundancy > 0 {
 		r.diag(a, model.Info, CodeReconciled, model.Span{}, fmt.Sprintf("%d measurements reconciled: chi-square %s is within %s, the 95 %% limit for redundancy %d",
@@ -204,10 +207,24 @@ func (r *run) uncertainty(d units.Dim, si float64, spelling string) string {
 	if spelling == "" && d == units.Temperature {
 		u = r.disp.Unit(units.TemperatureDiff)
 	}
-	if s := units.DeltaSymbol(u); s != "" {
-		return FormatU(u, si) + " " + s
+	return label(FormatU(u, si), units.DeltaSymbol(u))
+}
+
+// mismatch writes a balance's miss or allowance to three significant figures, so that the two
+// read apart, in the display unit.
+func (r *run) mismatch(d units.Dim, si float64) string {
+	u := r.disp.Unit(d)
+	if d == units.Temperature {
+		u = r.disp.Unit(units.TemperatureDiff)
 	}
-	return FormatU(u, si)
+	return label(units.Format(u.DeltaFromSI(si), 3), units.DeltaSymbol(u))
+}
+
+func label(num, sym string) string {
+	if sym == "" {
+		return num
+	}
+	return num + " " + sym
 }
 
 // FormatU writes an uncertainty si (SI) as a number in the unit u, to two significant figures

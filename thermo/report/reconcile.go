@@ -6,6 +6,7 @@ import (
 
 	"hmb/thermo/model"
 	"hmb/thermo/reconcile"
+	"hmb/thermo/solve"
 	"hmb/thermo/units"
 )
 
@@ -69,3 +70,37 @@ func isDelta(u *model.Unit, param string) bool {
 // ReconciliationNotes explains the reconciliation table, for a footnote.
 const ReconciliationNotes = "± is the 95 % half-width (1.96 standard deviations). The test is the normalised correction, " +
 	"|correction| over its standard deviation; above 1.96 the meter is suspect. A meter no balance checks is taken as read."
+
+// UncertaintyTable is one row per unit result that has an uncertainty: the unit, the result
+// (named as the kind catalogue names it: duty, power, efficiency, sgen, ...), its value and its
+// 95 % ±, in the model's display units. Results that follow from exact givens alone (± 0) are
+// left out; the table is empty when the file has no measurements.
+func UncertaintyTable(m *model.Model, r *solve.Result, rec *reconcile.Result) Table {
+	q := newQuantities(m)
+	t := Table{Name: "unit results", Cols: []Column{{Name: "unit"}, {Name: "result"}, {Name: "value", Num: true}}}
+	if r == nil || rec == nil {
+		return t
+	}
+	for i, u := range m.Units {
+		if u == nil || u.Kind == nil {
+			continue
+		}
+		sub := model.Subject{Kind: model.UnitSubject, Index: i}
+		for _, spec := range u.Kind.Results {
+			half := rec.U(sub, spec.Name)
+			v, _, _ := r.Value(m, sub, spec.Name)
+			un := q.unit(spec.Dim)
+			// Below a millionth of the display unit a ± is rounding of the derivative (the
+			// entropy a tee generates is zero up to rounding), not an uncertainty to show.
+			if !(un.DeltaFromSI(half) >= 1e-6) || math.IsNaN(v) {
+				continue
+			}
+			cell := q.cell(spec.Dim, v) + " ± " + reconcile.FormatU(un, half)
+			if sym := un.Symbol(); sym != "" {
+				cell += " " + sym
+			}
+			t.Rows = append(t.Rows, []string{u.Name, spec.Name, cell})
+		}
+	}
+	return t
+}

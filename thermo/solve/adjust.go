@@ -21,6 +21,9 @@ type Adjustment struct {
 	// Matched maps each equation to the unknown it was solved for, or -1 when the matching left
 	// it over: a redundant equation, checked after solving.
 	Matched []int
+	// Blocks are the matched equations in the groups the solver solved together, in solving
+	// order: the Jacobian of the matched equations is block lower triangular in this order.
+	Blocks [][]int
 	// Judged, which Adjust may set, marks redundant equations whose verdict it gives itself: the
 	// solver then reports them neither as closures (HMB504) nor as conflicts (HMB502, HMB503).
 	Judged []bool
@@ -34,7 +37,7 @@ func (s *solveRun) adjust() {
 		return
 	}
 	a := &Adjustment{Model: s.m, System: s.b.sys, X: s.x, Solved: s.solved, Matched: s.st.matchEq,
-		Judged: make([]bool, len(s.b.sys.Eqs))}
+		Blocks: s.st.blocks, Judged: make([]bool, len(s.b.sys.Eqs))}
 	s.opt.Adjust(s.ctx, a)
 	s.judged = a.Judged
 	s.diags = append(s.diags, a.Diags...)
@@ -43,61 +46,79 @@ func (s *solveRun) adjust() {
 // isJudged reports whether Options.Adjust gave the verdict on redundant equation e.
 func (s *solveRun) isJudged(e int) bool { return e < len(s.judged) && s.judged[e] }
 
-// UnitAt returns unit u's results (duty, power, entropy generation, ...) at other values x of the
-// unknowns (as long as Result.X), as the solver would report them there, without its checks:
-// what uncertainty propagation differentiates. ok is false when the unit was not solved.
-func (r *Result) UnitAt(u int, x []float64) (res UnitResult, ok bool) {
-	s := r.run
-	if s == nil || u < 0 || u >= len(s.m.Units) || s.b.badUnit[u] || len(x) != len(s.x) {
-		return nanUnit(), false
-	}
-	sh := *s // a shadow run: its own values, states and (discarded) findings
-	sh.x = x
-	sh.diags = nil
-	sh.res = &Result{Streams: make([]StreamResult, len(s.m.Streams)), Units: []UnitResult{nanUnit()}}
-	sys := s.b.sys
-	for _, p := range s.m.Units[u].Ports {
-		sr := &sh.res.Streams[p.Stream]
-		sr.M = math.NaN()
-		pv, hv, mv := sys.StreamVar(p.Stream, model.P), sys.StreamVar(p.Stream, model.H), sys.StreamVar(p.Stream, model.Flow)
-		if !s.solved[pv] || !s.solved[hv] || !s.solved[mv] {
-			return nanUnit(), false
-		}
-		st, err := streamState(x[pv], x[hv])
-		if err != nil {
-			return nanUnit(), false
-		}
-		sr.State, sr.HasState, sr.M, sr.Solved = st, true, x[mv], true
-	}
-	c := &unitCalc{s: &sh, u: u, un: s.m.Units[u], res: &sh.res.Units[0]}
-	ops[s.m.Units[u].Kind.Name].finish(c)
-	return *c.res, true
-}
-
 // Adjust is the type of Options.Adjust.
 type Adjust func(ctx context.Context, a *Adjustment)
 
-// StreamAt returns stream i's result (flow and state) at other values x of the unknowns (as long
-// as Result.X): what uncertainty propagation differentiates. ok is false when the stream was not
-// solved or its state at x lies outside IAPWS-IF97.
-func (r *Result) StreamAt(i int, x []float64) (res StreamResult, ok bool) {
-	s := r.run
-	res.M = math.NaN()
-	if s == nil || i < 0 || i >= len(s.m.Streams) || len(x) != len(s.x) {
-		return res, false
+// Evaluator reads a subject's results at other values of the unknowns than the solved ones, as
+// the solver would report them there but without its checks: what uncertainty propagation
+// differentiates. It reuses its buffers and is not safe for concurrent use.
+type Evaluator struct {
+	sh  solveRun // a shadow of the run: its own values, states and (discarded) findings
+	res Result
+}
+
+// Evaluator returns an evaluator of r's results, or nil when r was not solved.
+func (r *Result) Evaluator() *Evaluator {
+	if r == nil || r.run == nil {
+		return nil
 	}
+	ev := &Evaluator{sh: *r.run}
+	ev.res.Streams = make([]StreamResult, len(r.Streams))
+	ev.res.Units = make([]UnitResult, len(r.Units))
+	ev.sh.res = &ev.res
+	return ev
+}
+
+// At evaluates the results of stream or unit sub at x (as long as Result.X) and returns a Result
+// to read them from with Value; nil when they cannot be evaluated there (a state outside
+// IAPWS-IF97, a value not solved).
+func (ev *Evaluator) At(sub model.Subject, x []float64) *Result {
+	s := &ev.sh
+	if len(x) != len(s.x) || sub.Index < 0 {
+		return nil
+	}
+	s.x, s.diags, s.explained = x, s.diags[:0], map[int]bool{}
+	switch sub.Kind {
+	case model.StreamSubject:
+		if sub.Index >= len(s.m.Streams) || !ev.stream(sub.Index, false) {
+			return nil
+		}
+	case model.UnitSubject:
+		u := sub.Index
+		if u >= len(s.m.Units) || s.b.badUnit[u] {
+			return nil
+		}
+		for _, p := range s.m.Units[u].Ports {
+			if !ev.stream(p.Stream, true) {
+				return nil
+			}
+		}
+		ev.res.Units[u] = nanUnit()
+		c := &unitCalc{s: s, u: u, un: s.m.Units[u], res: &ev.res.Units[u]}
+		ops[s.m.Units[u].Kind.Name].finish(c)
+	default:
+		return nil
+	}
+	return &ev.res
+}
+
+// stream sets stream i's state and flow at the shadow's values; needFlow: fail without a flow.
+func (ev *Evaluator) stream(i int, needFlow bool) bool {
+	s := &ev.sh
 	sys := s.b.sys
+	sr := &ev.res.Streams[i]
+	*sr = StreamResult{M: math.NaN()}
 	pv, hv, mv := sys.StreamVar(i, model.P), sys.StreamVar(i, model.H), sys.StreamVar(i, model.Flow)
-	if !s.solved[pv] || !s.solved[hv] {
-		return res, false
+	if !s.solved[pv] || !s.solved[hv] || needFlow && !s.solved[mv] {
+		return false
 	}
-	st, err := streamState(x[pv], x[hv])
+	st, err := streamState(s.x[pv], s.x[hv])
 	if err != nil {
-		return res, false
+		return false
 	}
-	res.State, res.HasState = st, true
+	sr.State, sr.HasState = st, true
 	if s.solved[mv] {
-		res.M, res.Solved = x[mv], true
+		sr.M, sr.Solved = s.x[mv], true
 	}
-	return res, true
+	return true
 }
