@@ -22,11 +22,12 @@ const (
 	StringToken                    // a label or a title
 	CommentToken                   // # to the end of the line
 	OperatorToken                  // = < <= > >= ±
+	CaseToken                      // a case's or a sweep's name
 	NumTokenKinds
 )
 
 var tokenKindNames = [NumTokenKinds]string{"keyword", "stream", "unit", "kind", "role", "parameter",
-	"property", "number", "unit spelling", "string", "comment", "operator"}
+	"property", "number", "unit spelling", "string", "comment", "operator", "case"}
 
 func (k TokenKind) String() string {
 	if k < NumTokenKinds {
@@ -170,12 +171,87 @@ func (t *tokenizer) stmt(s ast.Stmt) {
 		t.str(s.Label)
 		t.block(s.Block, true)
 	case *ast.Expect:
-		t.add(s.Keyword, s.Keyword+len("expect"), KeywordToken, false)
-		t.name(s.Target)
-		t.ident(s.Prop, PropToken, false)
-		t.add(s.OpPos, s.OpPos+len(s.Op), OperatorToken, false)
-		t.qty(s.Value)
-		t.tol(s.Tol)
+		t.expect(s)
+	case *ast.CaseDecl:
+		t.add(s.Keyword, s.Keyword+len("case"), KeywordToken, false)
+		t.ident(s.Name, CaseToken, true)
 		t.str(s.Label)
+		if s.Block != nil {
+			for _, e := range s.Block.Entries {
+				switch e := e.(type) {
+				case *ast.Expect:
+					t.expect(e)
+				case *ast.Override:
+					t.ref(e.Target, e.Prop, true)
+					t.qty(e.Value)
+					t.tol(e.Tol)
+					t.word(e.Word)
+				}
+			}
+		}
+	case *ast.SweepDecl:
+		t.add(s.Keyword, s.Keyword+len("sweep"), KeywordToken, false)
+		t.ident(s.Name, CaseToken, true)
+		t.str(s.Label)
+		if s.Block != nil {
+			for _, e := range s.Block.Entries {
+				t.sweepEntry(e)
+			}
+		}
+	}
+}
+
+func (t *tokenizer) expect(s *ast.Expect) {
+	t.add(s.Keyword, s.Keyword+len("expect"), KeywordToken, false)
+	t.name(s.Target)
+	t.ident(s.Prop, PropToken, false)
+	t.add(s.OpPos, s.OpPos+len(s.Op), OperatorToken, false)
+	t.qty(s.Value)
+	t.tol(s.Tol)
+	t.str(s.Label)
+}
+
+// ref classes "NAME PROPERTY" of a case or a sweep: the property is a unit's parameter (given)
+// or result, or a stream's property.
+func (t *tokenizer) ref(target, prop *ast.Ident, given bool) {
+	t.name(target)
+	k := PropToken
+	if given && t.isUnit(target) {
+		k = ParamToken
+	}
+	t.ident(prop, k, false)
+}
+
+// word classes the word a case states: free, or a parameter's word.
+func (t *tokenizer) word(w *ast.Ident) { t.ident(w, KeywordToken, false) }
+
+func (t *tokenizer) isUnit(id *ast.Ident) bool {
+	if t.r.Info == nil {
+		return false
+	}
+	o := t.r.Info.Objects[id.Name]
+	return o != nil && o.IsUnit
+}
+
+func (t *tokenizer) sweepEntry(e ast.Entry) {
+	switch e := e.(type) {
+	case *ast.Range:
+		t.ref(e.Target, e.Prop, true)
+		t.add(e.FromPos, e.FromPos+len("from"), KeywordToken, false)
+		t.qty(e.From)
+		t.add(e.ToPos, e.ToPos+len("to"), KeywordToken, false)
+		t.qty(e.To)
+		t.ident(e.By, KeywordToken, false)
+		t.qty(e.Step)
+	case *ast.Show:
+		t.add(e.Keyword, e.Keyword+len("show"), KeywordToken, false)
+		for _, it := range e.Items {
+			t.ref(it.Target, it.Prop, false)
+		}
+	case *ast.Names:
+		t.ident(e.Key, KeywordToken, false)
+		for _, n := range e.Names {
+			t.ident(n, CaseToken, false)
+		}
 	}
 }

@@ -18,13 +18,15 @@ type Node interface {
 	End() int // offset just past the last byte
 }
 
-// Stmt is a top-level statement: *Setting, *StreamDecl, *UnitDecl, *Expect or *Bad.
+// Stmt is a top-level statement: *Setting, *StreamDecl, *UnitDecl, *Expect, *CaseDecl,
+// *SweepDecl or *Bad.
 type Stmt interface {
 	Node
 	stmtNode()
 }
 
-// Entry is a line of a block: *Given, *Names or *Bad.
+// Entry is a line of a block: *Given, *Names or *Bad in a stream's or a unit's block; *Override,
+// *Expect or *Bad in a case's; *Range, *Show, *Names (the case it runs on) or *Bad in a sweep's.
 type Entry interface {
 	Node
 	entryNode()
@@ -229,7 +231,95 @@ type Comment struct {
 func (x *Comment) Pos() int { return x.Hash }
 func (x *Comment) End() int { return x.Hash + len(x.Text) }
 
+// CaseDecl is "case NAME [label] { entries }": a variant of the file (design, minimum load, one
+// boiler out) that replaces, adds or frees givens and parameters and checks expectations of its
+// own. Its entries are *Override, *Expect and *Bad.
+type CaseDecl struct {
+	Keyword int
+	Name    *Ident
+	Label   *String // or nil
+	Block   *Block
+}
+
+func (x *CaseDecl) Pos() int { return x.Keyword }
+func (x *CaseDecl) End() int { return declEnd(x.Name, x.Label, x.Block) }
+
+// Override is a case's entry "NAME PROPERTY VALUE [tol]": a stream's given or a unit's parameter
+// replaced or added; or "NAME PROPERTY WORD": a parameter stated as a word (arrangement parallel),
+// or the word free, which removes the base's given. Exactly one of Value and Word is set.
+type Override struct {
+	Target *Ident // a stream or a unit
+	Prop   *Ident // a stream property or a unit parameter
+	Value  *Quantity
+	Tol    *Tol // or nil
+	Word   *Ident
+}
+
+func (x *Override) Pos() int { return x.Target.Pos() }
+func (x *Override) End() int {
+	switch {
+	case x.Word != nil:
+		return x.Word.End()
+	case x.Tol != nil:
+		return x.Tol.End()
+	}
+	return x.Value.End()
+}
+
+// SweepDecl is "sweep NAME [label] { entries }": one given or parameter varied over a range,
+// the file solved at each point. Its entries are *Range, *Show, *Names ("case NAME": the case
+// it varies, instead of the base) and *Bad.
+type SweepDecl struct {
+	Keyword int
+	Name    *Ident
+	Label   *String // or nil
+	Block   *Block
+}
+
+func (x *SweepDecl) Pos() int { return x.Keyword }
+func (x *SweepDecl) End() int { return declEnd(x.Name, x.Label, x.Block) }
+
+// Range is a sweep's entry "NAME PROPERTY from VALUE to VALUE step VALUE", or with "count N"
+// in place of the step.
+type Range struct {
+	Target *Ident
+	Prop   *Ident
+	From   *Quantity
+	To     *Quantity
+	By     *Ident    // "step" or "count"
+	Step   *Quantity // the step, or the number of points
+	// FromPos and ToPos are the offsets of the keywords from and to.
+	FromPos, ToPos int
+}
+
+func (x *Range) Pos() int { return x.Target.Pos() }
+func (x *Range) End() int { return x.Step.End() }
+
+// Show is a sweep's entry "show NAME RESULT, NAME RESULT...": the results its table lists.
+type Show struct {
+	Keyword int
+	Items   []*ResultRef
+}
+
+func (x *Show) Pos() int { return x.Keyword }
+func (x *Show) End() int { return x.Items[len(x.Items)-1].End() }
+
+// ResultRef names a result of a stream or a unit: "MS T", "T1 power".
+type ResultRef struct {
+	Target *Ident
+	Prop   *Ident
+}
+
+func (x *ResultRef) Pos() int { return x.Target.Pos() }
+func (x *ResultRef) End() int { return x.Prop.End() }
+
 func (*Setting) stmtNode()    {}
+func (*CaseDecl) stmtNode()   {}
+func (*SweepDecl) stmtNode()  {}
+func (*Override) entryNode()  {}
+func (*Expect) entryNode()    {}
+func (*Range) entryNode()     {}
+func (*Show) entryNode()      {}
 func (*StreamDecl) stmtNode() {}
 func (*UnitDecl) stmtNode()   {}
 func (*Expect) stmtNode()     {}

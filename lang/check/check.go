@@ -37,6 +37,10 @@ type Info struct {
 	Order   []*Object // in declaration order
 	// Unresolved holds mentions of undeclared names, which rename and references leave alone.
 	Unresolved []*ast.Ident
+	// Cases and Sweeps are the declarations of the model's cases and sweeps, in the same order
+	// (a sweep the checker left out of the model is left out here too).
+	Cases  []*ast.CaseDecl
+	Sweeps []*ast.SweepDecl
 }
 
 // At returns the object whose name (declaration or mention) covers the byte offset, and that
@@ -74,6 +78,8 @@ func Check(f *ast.File) (*model.Model, []model.Diagnostic, *Info) {
 	c.wiring()
 	c.compact()
 	c.expects()
+	c.cases()
+	c.sweeps()
 	for _, d := range c.diags {
 		if d.Severity == model.Error {
 			c.m.Incomplete = true

@@ -45,30 +45,38 @@ func (c *checker) expects() {
 }
 
 func (c *checker) expect(e *ast.Expect) {
+	if x := c.lowerExpect(e); x != nil {
+		c.m.Expects = append(c.m.Expects, x)
+	}
+}
+
+// lowerExpect checks an expectation and lowers it; nil after a report, or when its target was
+// left out of the model.
+func (c *checker) lowerExpect(e *ast.Expect) *model.Expect {
 	o := c.lookup(e.Target)
 	if o == nil {
 		c.undefined(e.Target, false, true)
-		return
+		return nil
 	}
 	prop := e.Prop.Name
 	x := &model.Expect{Stream: -1, Unit: -1, Prop: prop, Op: ops[e.Op], Spelling: spelling(e.Value), Span: span(e)}
 	var spec *model.ResultSpec
 	if o.IsUnit {
 		if o.Kind == nil {
-			return // reported at the declaration
+			return nil // reported at the declaration
 		}
 		if spec = o.Kind.Result(prop); spec == nil {
 			rs := Results(o.Kind)
 			d := c.errorf(CodeUnknownResult, e.Prop, "%s %s has no result %s (it has %s)", o.KindName, o.Name, prop, joinOr(rs))
 			suggest(d, prop, rs)
-			return
+			return nil
 		}
 		x.Unit = o.Index
 	} else {
 		if spec = model.StreamResult(prop); spec == nil {
 			d := c.errorf(CodeUnknownResult, e.Prop, "a stream has no property %s (it has %s)", prop, joinOr(StreamProps))
 			suggestProp(d, prop, StreamProps)
-			return
+			return nil
 		}
 		x.Stream = o.Index
 	}
@@ -76,7 +84,7 @@ func (c *checker) expect(e *ast.Expect) {
 	what := prop + " of " + o.Name
 	v, u, ok := c.convert(e.Value, dim, what, false)
 	if !ok {
-		return
+		return nil
 	}
 	// A comparison may name a bound no state reaches (x > 0, p > 0 bar); only a flow, absolute
 	// pressure or temperature below zero, or a quality outside 0..1, can never be met.
@@ -84,21 +92,21 @@ func (c *checker) expect(e *ast.Expect) {
 	// triple-point liquid, and liquid at 0 °C lies slightly below.)
 	if sp, isProp := propByName[prop]; !o.IsUnit && isProp && sp != model.H && sp != model.S && (v < 0 || sp == model.X && v > 1) {
 		c.plausible(sp, e.Value, v, u)
-		return
+		return nil
 	}
 	x.Value = v
 	if e.Tol != nil {
 		if !c.checkWithin(e) {
-			return
+			return nil
 		}
 		if x.Tol, ok = c.tolerance(e.Tol, e.Value, u, dim, what); !ok {
-			return
+			return nil
 		}
 	}
 	if x.Unit < 0 && x.Stream < 0 {
-		return // the target was left out of the model; its errors are reported
+		return nil // the target was left out of the model; its errors are reported
 	}
-	c.m.Expects = append(c.m.Expects, x)
+	return x
 }
 
 func (c *checker) checkWithin(e *ast.Expect) bool {

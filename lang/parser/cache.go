@@ -10,6 +10,10 @@ const (
 	prodExpect
 	prodGiven
 	prodNames
+	prodCase // a case's or sweep's header, through unitParser
+	prodOverride
+	prodRange
+	prodShow
 )
 
 // maxShapes bounds the cache: ordinary files have a few dozen shapes, and a hostile or random

@@ -20,7 +20,13 @@ import (
 //	expect  = "expect" Ident Ident op quantity [tol] [String]
 //	given   = Ident quantity [tol]                       (in a block: p 150 psig ± 2 %)
 //	names   = Ident Ident {"," Ident}                    (in a block: in S6, S7; fluid water)
+//	case    = "case" Ident [String] "{"                  (its entries: override, expect)
+//	override = Ident Ident (quantity [tol] | Ident)      (in a case: FW flow 6 kg/s; FW T free)
+//	sweep   = "sweep" Ident [String] "{"                 (its entries: range, show, names)
+//	range   = Ident Ident "from" bound "to" bound ("step" | "count") bound
+//	show    = "show" Ident Ident {"," Ident Ident}       (in a sweep: show MS T, T1 power)
 //	quantity = Number [Ident | Word]                    (a unit spelling; not "within")
+//	bound   = Number [Ident | Word]                     (a unit spelling; not "to", "step", "count")
 //	tol     = (PlusMinus | "within") quantity
 //	op      = "=" | "<" | "<=" | ">" | ">="
 
@@ -75,6 +81,41 @@ type gGiven struct {
 type gNames struct {
 	Key   lexer.Token `parser:"@Ident"`
 	Names []gName     `parser:"@@ ( Comma @@ )*"`
+}
+
+type gOverride struct {
+	Target lexer.Token  `parser:"@Ident"`
+	Prop   lexer.Token  `parser:"@Ident"`
+	Value  *gQuantity   `parser:"( @@"`
+	Tol    *gTol        `parser:"  @@?"`
+	Word   *lexer.Token `parser:"| @Ident )"`
+}
+
+type gBound struct {
+	Num  lexer.Token  `parser:"@Number"`
+	Unit *lexer.Token `parser:"( (?! 'to' | 'step' | 'count') @(Ident | Word) )?"`
+}
+
+type gRange struct {
+	Target lexer.Token `parser:"@Ident"`
+	Prop   lexer.Token `parser:"@Ident"`
+	From   lexer.Token `parser:"@'from'"`
+	Lo     gBound      `parser:"@@"`
+	To     lexer.Token `parser:"@'to'"`
+	Hi     gBound      `parser:"@@"`
+	By     lexer.Token `parser:"@('step' | 'count')"`
+	Step   gBound      `parser:"@@"`
+}
+
+// gShow's keyword is any name: the driver picks the production when the entry starts with show.
+type gShow struct {
+	Kw    lexer.Token `parser:"@Ident"`
+	Items []gRef      `parser:"@@ ( Comma @@ )*"`
+}
+
+type gRef struct {
+	Target lexer.Token `parser:"@Ident"`
+	Prop   lexer.Token `parser:"@Ident"`
 }
 
 // gName wraps a name of a list: participle overwrites, rather than appends to, a []lexer.Token.
@@ -138,4 +179,8 @@ var (
 	expectParser  = build[gExpect]()
 	givenParser   = build[gGiven]()
 	namesParser   = build[gNames]()
+	// A case's or a sweep's header has a unit's shape: keyword, name, label, brace.
+	overrideParser = build[gOverride]()
+	rangeParser    = build[gRange]()
+	showParser     = build[gShow]()
 )

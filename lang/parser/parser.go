@@ -92,6 +92,7 @@ type parser struct {
 	diags     []model.Diagnostic
 	dropped   int           // syntax errors past keepErrors, counted but not kept
 	piece     []token.Token // scratch: the significant tokens of the current piece
+	mode      blockMode     // what the entries of the block being parsed are
 	entries   []ast.Entry   // scratch: the entries of the current block
 	shapes    localShapes   // this parse's view of the shape cache
 	nComments int
@@ -244,11 +245,16 @@ func (p *parser) parseStmt(i int) int {
 		return end
 	}
 	var stmt ast.Stmt
+	p.mode = plainBlock
 	switch first := piece[0]; {
 	case p.isKeyword(first, "stream"):
 		stmt = p.streamDecl(piece)
 	case p.isKeyword(first, "expect"):
 		stmt = p.expect(piece)
+	case p.isKeyword(first, "case"):
+		stmt, p.mode = p.caseDecl(piece), caseBlock
+	case p.isKeyword(first, "sweep"):
+		stmt, p.mode = p.caseDecl(piece), sweepBlock
 	case hasBlock:
 		stmt = p.unitDecl(piece)
 	default:
@@ -259,6 +265,10 @@ func (p *parser) parseStmt(i int) int {
 	case *ast.StreamDecl:
 		s.Block = b
 	case *ast.UnitDecl:
+		s.Block = b
+	case *ast.CaseDecl:
+		s.Block = b
+	case *ast.SweepDecl:
 		s.Block = b
 	case *ast.Bad:
 		s.To = max(s.To, b.End())
@@ -349,7 +359,7 @@ func (p *parser) blockEntries(b *ast.Block, lb int, owner ast.Stmt) int {
 			j++
 		}
 		first := p.toks[i]
-		if startsStmt || p.isKeyword(first, "stream") || p.isKeyword(first, "expect") {
+		if startsStmt || p.isKeyword(first, "stream") || p.isKeyword(first, "expect") && p.mode != caseBlock {
 			p.unclosed(b, owner, int(first.Pos))
 			return i
 		}
@@ -367,6 +377,10 @@ func (p *parser) unclosed(b *ast.Block, owner ast.Stmt, next int) {
 		what = "block of stream " + s.Name.Name
 	case *ast.UnitDecl:
 		what = "block of " + s.Kind.Name + " " + s.Name.Name
+	case *ast.CaseDecl:
+		what = "block of case " + s.Name.Name
+	case *ast.SweepDecl:
+		what = "block of sweep " + s.Name.Name
 	}
 	d := p.errorf(CodeUnclosed, b.Lbrace, b.Lbrace+1, "%s is not closed: missing }", what)
 	if next >= 0 && d != nil {
@@ -374,7 +388,88 @@ func (p *parser) unclosed(b *ast.Block, owner ast.Stmt, next int) {
 	}
 }
 
+// blockMode says which productions a block's entries take.
+type blockMode uint8
+
+const (
+	plainBlock blockMode = iota // a stream's or a unit's: givens and names
+	caseBlock                   // a case's: overrides and expectations
+	sweepBlock                  // a sweep's: a range, show lists and the case it runs on
+)
+
 // Productions. Each returns its node, or an *ast.Bad after reporting the error.
+
+// caseDecl parses the header of a case or a sweep (piece[0] says which): it has a unit's shape.
+func (p *parser) caseDecl(piece []token.Token) ast.Stmt {
+	kw := p.text(piece[0])
+	g, bad := parseOrReport(p, prodCase, unitParser, piece, kw+" declaration")
+	if bad != nil {
+		return bad
+	}
+	name, label := p.ident(piece, &g.Name), p.label(piece, g.Label)
+	if kw == "sweep" {
+		return &ast.SweepDecl{Keyword: int(piece[0].Pos), Name: name, Label: label}
+	}
+	return &ast.CaseDecl{Keyword: int(piece[0].Pos), Name: name, Label: label}
+}
+
+// caseEntry parses an entry of a case: an expectation, or NAME PROPERTY VALUE.
+func (p *parser) caseEntry(piece []token.Token) ast.Entry {
+	if p.isKeyword(piece[0], "expect") {
+		switch x := p.expect(piece).(type) {
+		case *ast.Expect:
+			return x
+		case *ast.Bad:
+			return x
+		}
+	}
+	if len(piece) == 1 && piece[0].Kind == token.Ident {
+		return p.missingValue(piece[0])
+	}
+	g, bad := parseOrReport(p, prodOverride, overrideParser, piece, "case entry")
+	if bad != nil {
+		return bad
+	}
+	x := &ast.Override{Target: p.ident(piece, &g.Target), Prop: p.ident(piece, &g.Prop)}
+	if g.Word != nil {
+		x.Word = p.ident(piece, g.Word)
+	} else {
+		x.Value, x.Tol = p.quantity(piece, g.Value), p.tol(piece, g.Tol)
+	}
+	return x
+}
+
+// sweepEntry parses an entry of a sweep: show ..., case NAME, or the range.
+func (p *parser) sweepEntry(piece []token.Token) ast.Entry {
+	switch {
+	case len(piece) == 1 && piece[0].Kind == token.Ident:
+		return p.missingValue(piece[0])
+	case p.isKeyword(piece[0], "show"):
+		g, bad := parseOrReport(p, prodShow, showParser, piece, "show list")
+		if bad != nil {
+			return bad
+		}
+		x := &ast.Show{Keyword: int(piece[0].Pos), Items: make([]*ast.ResultRef, len(g.Items))}
+		for k := range g.Items {
+			x.Items[k] = &ast.ResultRef{Target: p.ident(piece, &g.Items[k].Target), Prop: p.ident(piece, &g.Items[k].Prop)}
+		}
+		return x
+	case p.isKeyword(piece[0], "case"):
+		return p.entry(piece) // case NAME: a list of names, which the checker holds to one
+	}
+	g, bad := parseOrReport(p, prodRange, rangeParser, piece, "sweep range")
+	if bad != nil {
+		return bad
+	}
+	return &ast.Range{Target: p.ident(piece, &g.Target), Prop: p.ident(piece, &g.Prop),
+		FromPos: int(piece[g.From.Pos.Offset].Pos), From: p.bound(piece, &g.Lo),
+		ToPos: int(piece[g.To.Pos.Offset].Pos), To: p.bound(piece, &g.Hi),
+		By: p.ident(piece, &g.By), Step: p.bound(piece, &g.Step)}
+}
+
+func (p *parser) bound(piece []token.Token, b *gBound) *ast.Quantity {
+	return p.quantity(piece, &gQuantity{Num: b.Num, Unit: b.Unit})
+}
 
 func (p *parser) streamDecl(piece []token.Token) ast.Stmt {
 	g, bad := parseOrReport(p, prodStream, streamParser, piece, "stream declaration")
@@ -614,7 +709,11 @@ func parseOrReport[G any](p *parser, prod byte, gp *participle.Parser[G], piece 
 
 // shapeByte is a token's part of a shape: its kind, or a keyword the grammar spells out.
 func (p *parser) shapeByte(t token.Token) byte {
-	if t.Kind == token.Ident && t.End-t.Pos == 6 { // the length of all three keywords
+	if t.Kind != token.Ident {
+		return byte(t.Kind)
+	}
+	switch t.End - t.Pos { // the lengths of the keywords
+	case 6:
 		switch p.text(t) {
 		case "stream":
 			return 100
@@ -623,11 +722,26 @@ func (p *parser) shapeByte(t token.Token) byte {
 		case "within":
 			return 102
 		}
+	case 2:
+		if p.text(t) == "to" {
+			return 103
+		}
+	case 4:
+		switch p.text(t) {
+		case "from":
+			return 104
+		case "step":
+			return 105
+		}
+	case 5:
+		if p.text(t) == "count" {
+			return 106
+		}
 	}
 	return byte(t.Kind)
 }
 
-// shapeCode numbers a shape byte from 1 to 21 (kinds, then the three keywords) for packing.
+// shapeCode numbers a shape byte from 1 to 25 (kinds, then the seven keywords) for packing.
 func shapeCode(c byte) byte {
 	if c >= 100 {
 		return c - 100 + byte(token.PlusMinus) + 2
@@ -698,13 +812,18 @@ var probes = []struct {
 	{token.Ident, "within", 1 << 11, "within"},
 	{token.LBrace, "", 1 << 12, "{"},
 	{token.EOF, "", 1 << 13, "the end of the line"},
+	{token.Ident, "from", 1 << 14, "from"},
+	{token.Ident, "to", 1 << 15, "to"},
+	{token.Ident, "step", 1 << 16, "step"},
+	{token.Ident, "count", 1 << 17, "count"},
 }
 
 const (
-	expectName   = expected(1 << 0)
-	expectUnit   = expected(1 << 2)
-	expectWithin = expected(1 << 11)
-	expectEnd    = expected(1 << 13)
+	expectName = expected(1 << 0)
+	expectUnit = expected(1 << 2)
+	// expectKeywords are the keywords the grammar spells out after a statement's first word.
+	expectKeywords = expected(1<<11 | 1<<14 | 1<<15 | 1<<16 | 1<<17)
+	expectEnd      = expected(1 << 13)
 )
 
 // expectedAt asks the grammar what may follow the tokens before a failure: each candidate token
@@ -737,8 +856,8 @@ func (x expected) String() string {
 		case x&pr.bit == 0:
 		case pr.bit == expectName && x&expectUnit != 0:
 			// A name where a unit spelling may stand is a unit spelling.
-		case pr.bit == expectWithin && x&expectName != 0 && x&expectUnit == 0:
-			// Where any name fits, within is only one of them.
+		case pr.bit&expectKeywords != 0 && x&expectName != 0 && x&expectUnit == 0:
+			// Where any name fits, a keyword is only one of them.
 		default:
 			words = append(words, pr.word)
 		}
@@ -829,11 +948,26 @@ func (p *parser) entryErr(piece []token.Token) *parseErr {
 	if len(piece) < 2 {
 		return &parseErr{} // a key alone
 	}
+	var e *parseErr
+	switch {
+	case p.mode == caseBlock && p.isKeyword(piece[0], "expect"):
+		_, e = parsePiece(p, prodExpect, expectParser, piece)
+		return e
+	case p.mode == caseBlock:
+		_, e = parsePiece(p, prodOverride, overrideParser, piece)
+		return e
+	case p.mode == sweepBlock && p.isKeyword(piece[0], "show"):
+		_, e = parsePiece(p, prodShow, showParser, piece)
+		return e
+	case p.mode == sweepBlock && !p.isKeyword(piece[0], "case"):
+		_, e = parsePiece(p, prodRange, rangeParser, piece)
+		return e
+	}
 	if piece[1].Kind == token.Ident {
 		_, e := parsePiece(p, prodNames, namesParser, piece)
 		return e
 	}
-	_, e := parsePiece(p, prodGiven, givenParser, piece)
+	_, e = parsePiece(p, prodGiven, givenParser, piece)
 	return e
 }
 
@@ -845,7 +979,14 @@ func (p *parser) addEntries(piece []token.Token) {
 		p.addEntries(piece[k:])
 		return
 	}
-	p.entries = append(p.entries, p.entry(piece))
+	switch p.mode {
+	case caseBlock:
+		p.entries = append(p.entries, p.caseEntry(piece))
+	case sweepBlock:
+		p.entries = append(p.entries, p.sweepEntry(piece))
+	default:
+		p.entries = append(p.entries, p.entry(piece))
+	}
 }
 
 // stmtErr is the failure of a piece as one statement without a block, nil when it parses.
@@ -858,6 +999,8 @@ func (p *parser) stmtErr(piece []token.Token) *parseErr {
 		_, e = parsePiece(p, prodStream, streamParser, piece)
 	case p.isKeyword(first, "expect"):
 		_, e = parsePiece(p, prodExpect, expectParser, piece)
+	case p.isKeyword(first, "case"), p.isKeyword(first, "sweep"):
+		_, e = parsePiece(p, prodCase, unitParser, piece)
 	default:
 		_, e = parsePiece(p, prodSetting, settingParser, piece)
 	}
@@ -878,6 +1021,8 @@ func (p *parser) addStmts(piece []token.Token) {
 		stmt = p.streamDecl(piece)
 	case p.isKeyword(first, "expect"):
 		stmt = p.expect(piece)
+	case p.isKeyword(first, "case"), p.isKeyword(first, "sweep"):
+		stmt = p.caseDecl(piece) // a case or sweep needs its block: this reports the missing {
 	default:
 		stmt = p.setting(piece)
 	}

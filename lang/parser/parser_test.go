@@ -89,6 +89,22 @@ func TestDiagnostics(t *testing.T) {
 			[]want{{"HMB103", "display", "missing ; before display: display starts a new statement on the same line (separate them with ; or a line break)", ""}}},
 		{"setting without a value", "title",
 			[]want{{"HMB106", "title", "title has no value after it", ""}}},
+		{"case without a block", "case low \"minimum load\"",
+			[]want{{"HMB103", "load\"|", "case declaration ends too early: expected {", ""}}},
+		{"case entry with two values", "case low {\n  FW flow 6 kg/s 7\n}",
+			[]want{{"HMB103", "kg/s |7", "unexpected number \"7\" in case entry: expected ±, within or the end of the line", ""}}},
+		{"case entry without a value", "case low { FW flow }",
+			[]want{{"HMB103", "flow|", "case entry ends too early: expected a name or a number", ""}}},
+		{"case not closed before the next statement", "case low { FW flow 6 kg/s\nstream A",
+			[]want{{"HMB104", "{", "block of case low is not closed: missing }", "kg/s\n|"}}},
+		{"sweep range without from", "sweep s { FW flow 4 kg/s to 8 kg/s step 1 kg/s }",
+			[]want{{"HMB103", "4 kg/s to 8 kg/s step 1 kg/s", "unexpected number \"4\" in sweep range: expected from", ""}}},
+		{"sweep range without a step", "sweep s { FW flow from 4 kg/s to 8 kg/s }",
+			[]want{{"HMB103", "8 kg/s|", "sweep range ends too early: expected step or count", ""}}},
+		{"sweep range with a misspelt step", "sweep s { FW flow from 4 kg/s to 8 kg/s stp 1 kg/s }",
+			[]want{{"HMB103", "stp 1 kg/s", "unexpected name \"stp\" in sweep range: expected step or count", ""}}},
+		{"show list without a result", "sweep s { FW flow from 4 kg/s to 8 kg/s count 3; show MS }",
+			[]want{{"HMB103", "MS|", "show list ends too early: expected a name", ""}}},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -187,6 +203,18 @@ func TestRecovery(t *testing.T) {
 		{"stray brace skipped",
 			"}\nstream A { p 1 bar }",
 			[]string{"HMB105"}, "stream A [p]"},
+		{"case entries, an expectation among them",
+			"case low {\n  FW flow 6 kg/s\n  expect MS T > 400 C\n  T1 arrangement parallel\n  FW T free\n}\nstream A",
+			nil, "case low [FW.flow expect T1.arrangement FW.T] | stream A"},
+		{"broken case entry costs only itself",
+			"case low {\n  FW flow 6 kg/s kg/s\n  FW T free\n}",
+			[]string{"HMB103"}, "case low [bad FW.T]"},
+		{"sweep entries; dimensionless bounds do not take to or step as units",
+			"sweep s {\n  T1 efficiency from 0.7 to 0.9 step 0.05\n  show MS T, T1 power\n  case low\n}",
+			nil, "sweep s [T1.efficiency(0.7..0.9 step 0.05) show(MS.T T1.power) case]"},
+		{"sweep by count",
+			"sweep s { FW p from 5 bar to 40 bar count 36 }",
+			nil, "sweep s [FW.p(5..40 count 36)]"},
 		{"half-typed last statement",
 			"stream A { p 1 bar }\nvalve V { in A; out",
 			[]string{"HMB104", "HMB106"}, "stream A [p] | valve V [in bad]"},
@@ -221,6 +249,18 @@ func summarise(f *ast.File) string {
 				es = append(es, e.Key.Name)
 			case *ast.Names:
 				es = append(es, e.Key.Name)
+			case *ast.Override:
+				es = append(es, e.Target.Name+"."+e.Prop.Name)
+			case *ast.Expect:
+				es = append(es, "expect")
+			case *ast.Range:
+				es = append(es, fmt.Sprintf("%s.%s(%s..%s %s %s)", e.Target.Name, e.Prop.Name, e.From.Raw, e.To.Raw, e.By.Name, e.Step.Raw))
+			case *ast.Show:
+				var rs []string
+				for _, it := range e.Items {
+					rs = append(rs, it.Target.Name+"."+it.Prop.Name)
+				}
+				es = append(es, "show("+strings.Join(rs, " ")+")")
 			default:
 				es = append(es, "bad")
 			}
@@ -237,6 +277,10 @@ func summarise(f *ast.File) string {
 			parts = append(parts, "expect "+s.Target.Name+" "+s.Prop.Name)
 		case *ast.Setting:
 			parts = append(parts, "setting "+s.Key.Name)
+		case *ast.CaseDecl:
+			parts = append(parts, "case "+s.Name.Name+block(s.Block))
+		case *ast.SweepDecl:
+			parts = append(parts, "sweep "+s.Name.Name+block(s.Block))
 		default:
 			parts = append(parts, "bad")
 		}

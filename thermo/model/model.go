@@ -169,6 +169,8 @@ type Model struct {
 	Streams []*Stream
 	Units   []*Unit
 	Expects []*Expect
+	Cases   []*Case  // variants of the model, solved each on its own (see WithCase)
+	Sweeps  []*Sweep // one value varied over a range
 	// Incomplete is set when the notation dropped broken statements; the solver then does not
 	// report under-specification, which would only echo the errors already reported.
 	Incomplete bool
