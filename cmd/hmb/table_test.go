@@ -50,8 +50,9 @@ func TestTableGolden(t *testing.T) {
 	}
 }
 
-// TestTableCSVParses reads each example's CSV back with encoding/csv: two sections, each a row
-// of names, a row of units and rows of equal length whose numeric cells parse as numbers.
+// TestTableCSVParses reads each example's CSV back with encoding/csv: three sections (streams,
+// units, the basis), each a row of names, a row of units and rows of equal length whose numeric
+// cells parse as numbers.
 func TestTableCSVParses(t *testing.T) {
 	for _, f := range exampleFiles(t) {
 		for _, sys := range []string{"--si", "--us"} {
@@ -60,7 +61,7 @@ func TestTableCSVParses(t *testing.T) {
 				t.Fatalf("%s %s: no output: %s", f, sys, stderr)
 			}
 			sections := strings.Split(strings.TrimSuffix(string(out), "\n"), "\n\n")
-			if len(sections) != 2 {
+			if len(sections) != 3 {
 				t.Fatalf("%s: %d sections", f, len(sections))
 			}
 			for k, sec := range sections {
@@ -68,7 +69,7 @@ func TestTableCSVParses(t *testing.T) {
 				if err != nil {
 					t.Fatalf("%s section %d: %v", f, k, err)
 				}
-				if len(recs) < 2 || recs[0][0] != []string{"stream", "unit"}[k] {
+				if len(recs) < 2 || recs[0][0] != []string{"stream", "unit", "ambient"}[k] {
 					t.Fatalf("%s section %d: %q", f, k, recs)
 				}
 				units := recs[1]

@@ -87,8 +87,8 @@ func TestUnsolvedCells(t *testing.T) {
 	}
 }
 
-// TestCSVReadsBack parses the CSV as a spreadsheet would: two sections, each with names, units
-// and one row per stream or unit, every number parseable.
+// TestCSVReadsBack parses the CSV as a spreadsheet would: three sections (streams, units and the
+// basis: the ambient temperature), each with names, units and rows, every number parseable.
 func TestCSVReadsBack(t *testing.T) {
 	in := testInput(t, units.US)
 	var b bytes.Buffer
@@ -102,7 +102,7 @@ func TestCSVReadsBack(t *testing.T) {
 		t.Fatal(err)
 	}
 	// The empty line between the sections is skipped by encoding/csv.
-	if len(recs) != 2+3+2+2 {
+	if len(recs) != 2+3+2+2+2+1 {
 		t.Fatalf("%d records:\n%q", len(recs), recs)
 	}
 	if recs[0][2] != "flow" || recs[1][2] != "lbm/h" || recs[1][3] != "psia" || recs[2][1] != "header <steam>" {
@@ -124,7 +124,11 @@ func TestCSVReadsBack(t *testing.T) {
 		}
 	}
 	numeric(recs[2:5], 2, 3, 4, 5, 6, 7)
-	numeric(recs[7:], 3, 4, 5)
+	numeric(recs[7:9], 3, 4, 5)
+	// The default ambient, 25 C = 77 F (t_F = 1.8 t_C + 32, NIST SP 811 (2008), 4.2.1.1).
+	if recs[9][0] != "ambient" || recs[10][0] != "F" || recs[11][0] != "77.000" {
+		t.Errorf("basis %q %q %q", recs[9], recs[10], recs[11])
+	}
 	// 2 kg/s = 2 / 0.45359237 * 3600 lbm/h (international pound, 1959), to 4 figures.
 	if got, _ := parseNum(recs[2][2]); math.Abs(got/(2/0.45359237*3600)-1) > 5e-4 {
 		t.Errorf("flow %g lbm/h", got)

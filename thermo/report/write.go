@@ -24,6 +24,15 @@ func Title(m *model.Model, path string) string {
 	return "untitled calc file"
 }
 
+// basisTable carries what basis says that a spreadsheet needs as a number: the ambient
+// temperature the entropy generation was computed with.
+func basisTable(m *model.Model) Table {
+	q := newQuantities(m)
+	tu := q.unit(units.Temperature)
+	return Table{Name: "basis", Cols: []Column{{Name: "ambient", Unit: tu.Symbol(), Num: true}},
+		Rows: [][]string{{sig(tu.FromSI(m.AmbientOr(), q.atm), 5)}}}
+}
+
 // basis says in one line what the numbers are in.
 func basis(m *model.Model) string {
 	q := newQuantities(m)
@@ -118,7 +127,7 @@ func WriteCSV(w io.Writer, in *Input) error {
 		return fmt.Errorf("nothing to tabulate: the file could not be read into a model")
 	}
 	bw := bufio.NewWriter(w)
-	for k, t := range []Table{StreamTable(in.Model, in.Result), UnitTable(in.Model, in.Result)} {
+	for k, t := range []Table{StreamTable(in.Model, in.Result), UnitTable(in.Model, in.Result), basisTable(in.Model)} {
 		if k > 0 {
 			bw.WriteString("\n")
 		}
