@@ -26,129 +26,125 @@ func Scan(src []byte) (toks []Token, errs []Error) {
 	}
 	for i < len(src) {
 		c := src[i]
-		start := i
-		if ascii[c]&identStart != 0 { // most tokens are names: straight to them
+		switch {
+		case ascii[c]&identStart != 0: // most tokens are names: straight to them
 			tok := wordToken(src, i)
 			toks = append(toks, tok)
 			i = int(tok.End)
 			continue
-		}
-		if isDigit(c) { // then numbers
-			i = scanNumber(src, i)
-			toks = append(toks, newToken(Number, start, i))
+		case isDigit(c): // then numbers
+			end := scanNumber(src, i)
+			toks = append(toks, newToken(Number, i, end))
+			i = end
 			continue
-		}
-		switch {
 		case isBlank(c):
 			for i++; i < len(src) && isBlank(src[i]); i++ {
 			}
 			continue
-		case c == '\n':
-			i++
-			toks = append(toks, newToken(Newline, start, i))
-			continue
-		case c == '\r': // "\r\n", or a lone "\r": a line ends there, as editors count lines
-			i++
-			if i < len(src) && src[i] == '\n' {
-				i++
-			}
-			toks = append(toks, newToken(Newline, start, i))
-			continue
-		case c == ';':
-			i++
-			toks = append(toks, newToken(Semi, start, i))
-			continue
-		case c == '#':
-			for i < len(src) && src[i] != '\n' && src[i] != '\r' {
-				i++
-			}
-			toks = append(toks, newToken(Comment, start, i))
-			continue
 		case c == '"':
-			end, ok := scanString(src, i)
-			toks = append(toks, newToken(String, start, end))
-			if !ok {
-				errs = append(errs, Error{start, end, "string not terminated before the end of the line"})
+			end, closed := scanString(src, i)
+			toks = append(toks, newToken(String, i, end))
+			if !closed {
+				errs = append(errs, Error{i, end, "string not terminated before the end of the line"})
 			}
 			i = end
 			continue
-		case c == '{':
-			toks = append(toks, newToken(LBrace, i, i+1))
-			i++
-			continue
-		case c == '}':
-			toks = append(toks, newToken(RBrace, i, i+1))
-			i++
-			continue
-		case c == ',':
-			toks = append(toks, newToken(Comma, i, i+1))
-			i++
-			continue
-		case c == '=':
-			toks = append(toks, newToken(Eq, i, i+1))
-			i++
-			continue
-		case c == '<' || c == '>':
-			k := Lt
-			if c == '>' {
-				k = Gt
-			}
-			i++
-			if i < len(src) && src[i] == '=' {
-				i++
-				k++ // Le follows Lt, Ge follows Gt
-			}
-			toks = append(toks, newToken(k, start, i))
-			continue
-		case c == '+' && i+1 < len(src) && src[i+1] == '-':
-			i += 2
-			toks = append(toks, newToken(PlusMinus, start, i))
-			continue
-		case c == '+' && i+2 < len(src) && src[i+1] == '/' && src[i+2] == '-':
-			i += 3
-			toks = append(toks, newToken(PlusMinus, start, i))
-			continue
-		case c == 0xC2 && i+1 < len(src) && src[i+1] == 0xB1: // ±
-			i += 2
-			toks = append(toks, newToken(PlusMinus, start, i))
-			continue
-		case isDigit(c) || (c == '.' || c == '-' || c == '+') && startsNumber(src, i):
-			i = scanNumber(src, i)
-			toks = append(toks, newToken(Number, start, i))
+		}
+		if tok, ok := punctuation(src, i); ok {
+			toks = append(toks, tok)
+			i = int(tok.End)
 			continue
 		}
-		// Names, unit spellings, and whatever else: decode the rune.
-		r, size := rune(c), 1
-		if c >= utf8.RuneSelf {
-			r, size = utf8.DecodeRune(src[i:])
-			if r == utf8.RuneError && size == 1 {
-				for i < len(src) && src[i] >= utf8.RuneSelf {
-					if r, s := utf8.DecodeRune(src[i:]); r != utf8.RuneError || s != 1 {
-						break
-					}
-					i++
-				}
-				toks = append(toks, newToken(Illegal, start, i))
-				errs = append(errs, Error{start, i, "invalid UTF-8 encoding"})
-				continue
-			}
-			if unicode.IsSpace(r) { // a no-break space pasted from a document
-				i += size
-				continue
-			}
+		tok, msg := other(src, i)
+		if msg != "" {
+			errs = append(errs, Error{i, int(tok.End), msg})
 		}
-		if r < ' ' || r == 0x7F || unicode.IsControl(r) {
-			i += size
-			toks = append(toks, newToken(Illegal, start, i))
-			errs = append(errs, Error{start, i, "unexpected control character"})
-			continue
+		if tok.Kind != EOF { // EOF marks a blank (a no-break space): no token
+			toks = append(toks, tok)
 		}
-		tok := wordToken(src, i)
-		toks = append(toks, tok)
 		i = int(tok.End)
 	}
 	toks = append(toks, newToken(EOF, len(src), len(src)))
 	return toks, errs
+}
+
+// punctuation scans the token at i when it is a line break, separator, comment, brace,
+// comparison, tolerance sign or a number starting with a sign or a point.
+func punctuation(src []byte, i int) (Token, bool) {
+	c := src[i]
+	one := func(k Kind) (Token, bool) { return newToken(k, i, i+1), true }
+	switch {
+	case c == '\n':
+		return one(Newline)
+	case c == '\r': // "\r\n", or a lone "\r": a line ends there, as editors count lines
+		if i+1 < len(src) && src[i+1] == '\n' {
+			return newToken(Newline, i, i+2), true
+		}
+		return one(Newline)
+	case c == ';':
+		return one(Semi)
+	case c == '#':
+		end := i
+		for end < len(src) && src[end] != '\n' && src[end] != '\r' {
+			end++
+		}
+		return newToken(Comment, i, end), true
+	case c == '{':
+		return one(LBrace)
+	case c == '}':
+		return one(RBrace)
+	case c == ',':
+		return one(Comma)
+	case c == '=':
+		return one(Eq)
+	case c == '<' || c == '>':
+		k, end := Lt, i+1
+		if c == '>' {
+			k = Gt
+		}
+		if end < len(src) && src[end] == '=' {
+			end++
+			k++ // Le follows Lt, Ge follows Gt
+		}
+		return newToken(k, i, end), true
+	case c == '+' && i+1 < len(src) && src[i+1] == '-':
+		return newToken(PlusMinus, i, i+2), true
+	case c == '+' && i+2 < len(src) && src[i+1] == '/' && src[i+2] == '-':
+		return newToken(PlusMinus, i, i+3), true
+	case c == 0xC2 && i+1 < len(src) && src[i+1] == 0xB1: // ±
+		return newToken(PlusMinus, i, i+2), true
+	case (c == '.' || c == '-' || c == '+') && startsNumber(src, i):
+		return newToken(Number, i, scanNumber(src, i)), true
+	}
+	return Token{}, false
+}
+
+// other scans what starts at i when it is no punctuation: a name or unit spelling, a blank
+// (a no-break space pasted from a document: an EOF-kind token that only moves the scanner on),
+// or an illegal character, with the message that reports it.
+func other(src []byte, i int) (Token, string) {
+	c := src[i]
+	r, size := rune(c), 1
+	if c >= utf8.RuneSelf {
+		r, size = utf8.DecodeRune(src[i:])
+		if r == utf8.RuneError && size == 1 {
+			end := i
+			for end < len(src) && src[end] >= utf8.RuneSelf {
+				if r, s := utf8.DecodeRune(src[end:]); r != utf8.RuneError || s != 1 {
+					break
+				}
+				end++
+			}
+			return newToken(Illegal, i, end), "invalid UTF-8 encoding"
+		}
+		if unicode.IsSpace(r) {
+			return newToken(EOF, i, i+size), ""
+		}
+	}
+	if r < ' ' || r == 0x7F || unicode.IsControl(r) {
+		return newToken(Illegal, i, i+size), "unexpected control character"
+	}
+	return wordToken(src, i), ""
 }
 
 func isDigit(c byte) bool { return '0' <= c && c <= '9' }
