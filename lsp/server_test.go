@@ -200,7 +200,7 @@ func TestRelatedInformation(t *testing.T) {
 // solves of versions 1 to 5 never end by themselves): only the last version may be published
 // (none of these versions has a syntax error, which would be published at once).
 func TestLatestEditWins(t *testing.T) {
-	c := startServer(t, newTestOptions(200*time.Millisecond))
+	c := startServer(t, newTestOptions(3*time.Second)) // the burst must fit in it on a busy machine
 	c.open(uri, 1, "title \"slow\"\nstream S1\n")
 	for v := int32(2); v <= 6; v++ {
 		text := fmt.Sprintf("title \"slow\"\nstream S%d\n", v)
