@@ -53,6 +53,11 @@ func TestAmbientAndUnitWords(t *testing.T) {
 				t.Errorf("min_approach %+v", g)
 			}
 		}},
+		{name: "min_approach in a difference unit", src: ex + "min_approach 9 dF }", check: func(t *testing.T, m *model.Model) {
+			if g := m.Units[0].Params["min_approach"]; g == nil || !near(g.Value, 5) {
+				t.Errorf("min_approach %+v", g)
+			}
+		}},
 		{name: "T_boundary of a heater", src: "stream A, B\nheater H { in A; out B; T_boundary 400 C }", check: func(t *testing.T, m *model.Model) {
 			if g := m.Units[0].Params["T_boundary"]; g == nil || !near(g.Value, 673.15) {
 				t.Errorf("T_boundary %+v", g)

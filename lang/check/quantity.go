@@ -127,7 +127,7 @@ func accepted(d units.Dim, delta bool) string {
 // difference one that does not read from the atmosphere (psi, not psig). ok is false after a
 // report.
 func (c *checker) convert(q *ast.Quantity, want units.Dim, what string, delta bool) (si float64, u units.Unit, ok bool) {
-	u, ok = c.unitIn(q, want, what, false, delta)
+	u, ok = c.unitIn(q, want, what, delta && want == units.Temperature, delta) // a temperature difference may be written in dK or dF
 	if !ok {
 		return 0, u, false
 	}
