@@ -1,6 +1,8 @@
 package lang
 
 import (
+	"strings"
+
 	"hmb/lang/ast"
 	"hmb/lang/check"
 	"hmb/lang/token"
@@ -160,6 +162,10 @@ func (e siteEntry) topLevel(site Site) Site {
 		return e.expect(site)
 	case first == "display" && len(e.toks) == 1:
 		site.Kinds, site.Words = SiteWord, []string{"SI", "US"}
+	case len(e.toks) == 1 && strings.HasPrefix(first, check.DisplayPrefix):
+		if _, dim, ok := check.DisplayQuantity(first); ok {
+			site.Kinds, site.Dim = SiteSpelling, dim
+		}
 	case first == "atmosphere" && e.afterNumber():
 		site.Kinds, site.Dim = SiteSpelling, units.Pressure
 	case first == "elevation" && e.afterNumber():
@@ -183,6 +189,9 @@ func (e siteEntry) expect(site Site) Site {
 		}
 	}
 	results := model.StreamResults
+	if len(e.toks) >= 2 && !isUnit && e.text(1) == model.TotalName && (e.r.Info == nil || e.r.Info.Objects[model.TotalName] == nil) {
+		results = model.TotalResults
+	}
 	if isUnit {
 		if unit == nil {
 			return site // a unit of unknown kind
@@ -192,7 +201,7 @@ func (e siteEntry) expect(site Site) Site {
 	}
 	switch {
 	case len(e.toks) == 1:
-		site.Kinds = SiteStream | SiteUnit
+		site.Kinds, site.Words = SiteStream|SiteUnit|SiteWord, []string{model.TotalName}
 	case len(e.toks) == 2:
 		site.Kinds, site.Results = SiteResult, results
 	case e.afterNumber():
@@ -229,6 +238,13 @@ var keywordDocs = map[string]string{
 	"date":        "setting (report title block): the date of this revision",
 	"within":      "the tolerance of an expectation: expect S1 T = 300 C within 2 C",
 	"fluid":       "the stream's fluid (water, liquid or steam: IAPWS-IF97)",
+}
+
+func init() {
+	for _, q := range check.DisplayQuantities {
+		keywordDocs[check.DisplayPrefix+q.Name] = "setting: the unit " + q.Doc + " are shown in, whatever the display system: " +
+			check.DisplayPrefix + q.Name + " " + units.SI.Default(q.Dim).Symbol()
+	}
 }
 
 // Keywords lists the notation's keywords with their help, in completion order: the statements,

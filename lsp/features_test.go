@@ -143,9 +143,9 @@ func TestCompletionSites(t *testing.T) {
 	}{
 		{"atmosphere spelling", protocol.Position{Line: 0, Character: 14}, "MPa MPa(a) MPa(g) MPaa MPag Pa atm bar bar(a) bar(g) bara barg hPa inH2O inH2O(a) inH2O(abs) inH2O(vac) inHg inHg(a) inHg(abs) inHg(vac) kPa kPa(a) kPa(g) kPaa kPag kg/cm2 kg/cm2(a) kg/cm2(g) kg/cm2a kg/cm2g kgf/cm2 kgf/cm2(a) kgf/cm2(g) kgf/cm2a kgf/cm2g mbar mmHg mmHg(a) mmHg(abs) mmHg(vac) psi psi(a) psi(d) psi(g) psia psid psig"},
 		{"turbine roles and parameters", protocol.Position{Line: 3, Character: 2}, "in out efficiency power"},
-		{"expect property", protocol.Position{Line: 5, Character: 9}, "flow p T h s x v"},
+		{"expect property", protocol.Position{Line: 5, Character: 9}, "flow p T h s x v rho vol_flow Tsat superheat subcooling"},
 		{"enthalpy spelling", protocol.Position{Line: 6, Character: 15}, "Btu/lb Btu/lbm J/kg MJ/kg kJ/kg kcal/kg"},
-		{"expect result of a turbine", protocol.Position{Line: 7, Character: 10}, "power efficiency sgen"},
+		{"expect result of a turbine", protocol.Position{Line: 7, Character: 10}, "power efficiency dp sgen"},
 		{"power spelling", protocol.Position{Line: 8, Character: 20}, "Btu/h Btu/hr GJ/h GJ/hr MBH MJ/h MJ/hr MMBtu/h MMBtu/hr MW TR W hp kBtu/h kBtu/hr kJ/h kJ/hr kW kcal/h kcal/hr ton"},
 		{"entropy rate spelling", protocol.Position{Line: 9, Character: 19}, "Btu/(h R) Btu/(h*R) Btu/(hr R) Btu/(h·R) Btu/h-R Btu/h/R Btu/hR Btu/hr-R Btu/hr/R MW/K W/K kW/K"},
 	}

@@ -36,7 +36,7 @@ var unreachableCodes = map[string]string{
 // diagnostic: the caret line shows where a range starts and its width on that line only.
 func renderBroken(fr *fileResult) []byte {
 	var b bytes.Buffer
-	writeText(&b, fr)
+	writeText(&b, fr, textOptions{})
 	li := newLineIndex(fr.src)
 	b.WriteString("-- ranges (line:column, end exclusive) --\n")
 	for _, d := range fr.diags {

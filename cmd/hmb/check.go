@@ -24,9 +24,12 @@ type fileResult struct {
 	diags   []model.Diagnostic
 	streams []jsonStream
 	units   []jsonUnit
-	table   string     // the solved-stream table in the file's units, for text output
-	ambient float64    // K, the surroundings' temperature the entropy generation uses; 0 when there is no model
-	recon   *jsonRecon // nil when nothing could be solved
+	totals  *jsonTotals  // nil when nothing was solved
+	expects []jsonExpect // every expectation with its verdict
+	table   string       // the solved-stream table in the file's units, for text output
+	passes  []passed     // the expectations that hold, for text output with -v
+	ambient float64      // K, the surroundings' temperature the entropy generation uses; 0 when there is no model
+	recon   *jsonRecon   // nil when nothing could be solved
 }
 
 func (f *fileResult) errors() int {
@@ -44,7 +47,8 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	fset.SetOutput(io.Discard)
 	format := fset.String("format", "text", "output format: text, json or sarif")
 	sys := addSystemFlags(fset)
-	quiet := fset.Bool("quiet", false, "diagnostics only, no result tables")
+	quiet := fset.Bool("quiet", false, "errors and warnings only: no notes, no result tables")
+	verbose := fset.Bool("v", false, "also list the expectations that hold")
 	if err := parseFlags(fset, args, stdout); err != nil {
 		return err
 	}
@@ -75,7 +79,7 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 		err = writeSARIF(stdout, results)
 	default:
 		for _, f := range results {
-			writeText(stdout, f)
+			writeText(stdout, f, textOptions{quiet: *quiet, passes: *verbose && !*quiet})
 			if !*quiet && f.table != "" {
 				fmt.Fprintf(stdout, "%s\n%s\n", f.path, f.table)
 			}

@@ -41,6 +41,13 @@ func TestCheckGolden(t *testing.T) {
 		{"text", []string{"check", "testdata/cli"}, 1, "check.txt"},
 		{"quiet", []string{"check", "--quiet", "testdata/cli/faulty.hmb"}, 1, "check-quiet.txt"},
 		{"clean-si", []string{"check", "--si", "testdata/cli/clean.hmb"}, 0, "check-si.txt"},
+		// Every expectation that holds, one line each; the file's own display units.
+		{"verbose", []string{"check", "-v", "testdata/cli/plant.hmb"}, 0, "check-verbose.txt"},
+		// --quiet drops the notes (HMB504: the redundant flow of PS agrees) as well as the tables and
+		// the expectations that hold: nothing to say.
+		{"quiet-notes", []string{"check", "--quiet", "-v", "testdata/cli/plant.hmb"}, 0, "check-quiet-notes.txt"},
+		// --us keeps only the US units a file chose (none here): psia, lbm/h.
+		{"plant-us", []string{"check", "--us", "testdata/cli/plant.hmb"}, 0, "check-plant-us.txt"},
 		{"json", []string{"check", "--format", "json", "testdata/cli"}, 1, "check.json"},
 		{"sarif", []string{"check", "--format", "sarif", "testdata/cli"}, 1, "check.sarif"},
 		// The bundled examples are clean (warnings only): exit 0 in every format.
@@ -174,8 +181,9 @@ func TestSARIF(t *testing.T) {
 	}
 	for _, res := range r.Results {
 		loc := res.Locations[0].PhysicalLocation
+		// faulty.hmb's errors, and the note that plant.hmb's redundant flow agrees.
 		if !rules[res.RuleID] || res.Level == "" || res.Message.Text == "" || loc.Region.StartLine < 1 ||
-			loc.ArtifactLocation.URI != "testdata/cli/faulty.hmb" {
+			loc.ArtifactLocation.URI != "testdata/cli/faulty.hmb" && (loc.ArtifactLocation.URI != "testdata/cli/plant.hmb" || res.Level != "note") {
 			t.Errorf("bad result %+v", res)
 		}
 	}
@@ -276,8 +284,14 @@ func TestResultsTable(t *testing.T) {
 	var b strings.Builder
 	b.WriteString("| result | of | quantity | what it is |\n|---|---|---|---|\n")
 	row := func(r model.ResultSpec, of, doc string) {
-		fmt.Fprintf(&b, "| `%s` | %s | %s (%s, %s) | %s |\n", r.Name, of, r.Dim,
-			orDash(units.SI.Default(r.Dim).Symbol()), orDash(units.US.Default(r.Dim).Symbol()), doc)
+		quantity := r.Dim.String()
+		si, us := units.Display{System: units.SI}.Unit(r.Dim), units.Display{System: units.US}.Unit(r.Dim)
+		if r.Delta {
+			quantity += " difference"
+			si, us = deltaOf(si, r.Dim), deltaOf(us, r.Dim)
+		}
+		fmt.Fprintf(&b, "| `%s` | %s | %s (%s, %s) | %s |\n", r.Name, of, quantity,
+			orDash(si.Symbol()), orDash(us.Symbol()), doc)
 	}
 	for _, r := range model.StreamResults {
 		row(r, "every stream", r.Doc)
@@ -309,7 +323,21 @@ func TestResultsTable(t *testing.T) {
 			row(r, strings.Join(of, ", "), doc)
 		}
 	}
+	for _, r := range model.TotalResults {
+		row(r, "`"+model.TotalName+"`", r.Doc)
+	}
 	readmeSection(t, "results", b.String())
+}
+
+// deltaOf is the unit a difference shows in: dK or dR for a temperature, psi for psia.
+func deltaOf(u units.Unit, d units.Dim) units.Unit {
+	if d == units.Temperature {
+		if u.US() {
+			return units.US.Default(units.TemperatureDiff)
+		}
+		return units.SI.Default(units.TemperatureDiff)
+	}
+	return u.DeltaUnit()
 }
 
 func orDash(s string) string {

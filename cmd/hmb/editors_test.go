@@ -38,6 +38,9 @@ func catalogueWords() editorWords {
 	for _, r := range model.StreamResults {
 		addProp(r.Name)
 	}
+	for _, r := range model.TotalResults {
+		addProp(r.Name)
+	}
 	for _, n := range w.Kinds {
 		k := model.Kinds[n]
 		for _, p := range k.Ports {

@@ -40,10 +40,26 @@ func (li *lineIndex) rng(sp model.Span) jsonRange {
 	return jsonRange{Start: li.pos(sp.Start), End: li.pos(sp.End)}
 }
 
-// writeText prints file:line:col: severity code: message, the source line and a caret under the span.
-func writeText(w io.Writer, f *fileResult) {
+// textOptions choose what text output shows beside errors and warnings.
+type textOptions struct {
+	quiet  bool // no notes (info diagnostics)
+	passes bool // the expectations that hold, one line each
+}
+
+// passed is an expectation that holds: where it is written and what it compared.
+type passed struct {
+	span model.Span
+	text string
+}
+
+// writeText prints file:line:col: severity code: message, the source line and a caret under the
+// span; with opt.passes, file:line:col: pass: and what each expectation that holds compared.
+func writeText(w io.Writer, f *fileResult, opt textOptions) {
 	li := newLineIndex(f.src)
 	for _, d := range f.diags {
+		if opt.quiet && d.Severity == model.Info {
+			continue
+		}
 		p := li.pos(d.Span.Start)
 		fmt.Fprintf(w, "%s:%d:%d: %s %s: %s\n", f.path, p.Line, p.Column, d.Severity, d.Code, d.Message)
 		text := li.lineText(p.Line)
@@ -57,6 +73,12 @@ func writeText(w io.Writer, f *fileResult) {
 		for _, r := range d.Related {
 			rp := li.pos(r.Span.Start)
 			fmt.Fprintf(w, "    %s:%d:%d: %s\n", f.path, rp.Line, rp.Column, r.Message)
+		}
+	}
+	if opt.passes {
+		for _, ps := range f.passes {
+			p := li.pos(ps.span.Start)
+			fmt.Fprintf(w, "%s:%d:%d: pass: %s\n", f.path, p.Line, p.Column, ps.text)
 		}
 	}
 }
@@ -85,11 +107,17 @@ type jsonFile struct {
 	// Reconciliation is the reconciliation of the file's measurements; null when the file
 	// could not be solved.
 	Reconciliation *jsonRecon `json:"reconciliation"`
+	// Totals are null when the file could not be read into a model.
+	Totals       *jsonTotals  `json:"totals"`
+	Expectations []jsonExpect `json:"expectations"`
 }
 
 func toJSONFile(f *fileResult) jsonFile {
 	li := newLineIndex(f.src)
-	jf := jsonFile{Path: f.path, Ambient: nan, Diagnostics: []jsonDiag{}, Streams: f.streams, Units: f.units, Reconciliation: f.recon}
+	jf := jsonFile{Path: f.path, Ambient: nan, Diagnostics: []jsonDiag{}, Streams: f.streams, Units: f.units, Totals: f.totals, Expectations: f.expects, Reconciliation: f.recon}
+	if jf.Expectations == nil {
+		jf.Expectations = []jsonExpect{}
+	}
 	if f.ambient > 0 {
 		jf.Ambient = jsonNum(f.ambient)
 	}

@@ -15,18 +15,27 @@ import (
 	"hmb/thermo/units"
 )
 
-// jsonStream is one solved stream in SI base units: kg/s, Pa, K, J/kg, J/(kg K); x is null when
-// the state is single phase or unknown.
+// jsonStream is one solved stream in SI base units: kg/s, Pa, K, J/kg, J/(kg K), m3/kg, kg/m3,
+// m3/s; x is null when the state is single phase or unknown, Tsat above the critical pressure,
+// superheat unless vapour, subcooling unless liquid. Given lists the properties the file gave
+// (vol_flow for a flow given in volume units); the rest were solved.
 type jsonStream struct {
-	Name  string  `json:"name"`
-	Label string  `json:"label,omitempty"`
-	M     jsonNum `json:"m"`
-	P     jsonNum `json:"p"`
-	T     jsonNum `json:"T"`
-	H     jsonNum `json:"h"`
-	S     jsonNum `json:"s"`
-	X     jsonNum `json:"x"`
-	Phase string  `json:"phase"`
+	Name       string   `json:"name"`
+	Label      string   `json:"label,omitempty"`
+	M          jsonNum  `json:"m"`
+	P          jsonNum  `json:"p"`
+	T          jsonNum  `json:"T"`
+	H          jsonNum  `json:"h"`
+	S          jsonNum  `json:"s"`
+	X          jsonNum  `json:"x"`
+	Phase      string   `json:"phase"`
+	Tsat       jsonNum  `json:"Tsat"`
+	Superheat  jsonNum  `json:"superheat"`
+	Subcooling jsonNum  `json:"subcooling"`
+	V          jsonNum  `json:"v"`
+	Rho        jsonNum  `json:"rho"`
+	VolFlow    jsonNum  `json:"vol_flow"`
+	Given      []string `json:"given"`
 	// U holds the 95 % half-widths of the values above, from the file's measurements (0 for a
 	// value that follows from exact givens alone).
 	U jsonStreamU `json:"u"`
@@ -41,7 +50,8 @@ type jsonStreamU struct {
 	X jsonNum `json:"x"`
 }
 
-// jsonUnit is one unit's balance in SI base units: W and W/K.
+// jsonUnit is one unit's balance in SI base units: W, W/K, Pa, K. A result the unit's kind does
+// not have is null: dp for an exchanger (dp_hot and dp_cold instead), efficiency for a valve.
 type jsonUnit struct {
 	Name string  `json:"name"`
 	Kind string  `json:"kind"`
@@ -52,6 +62,16 @@ type jsonUnit struct {
 	// only what happens inside the fluid (see solve.UnitResult.SgenFluidOnly).
 	SgenFluidOnly bool      `json:"S_gen_fluid_only,omitempty"`
 	U             jsonUnitU `json:"u"` // 95 % half-widths
+	Dp            jsonNum   `json:"dp"`
+	DpHot         jsonNum   `json:"dp_hot"`
+	DpCold        jsonNum   `json:"dp_cold"`
+	Efficiency    jsonNum   `json:"efficiency"`
+	Fuel          jsonNum   `json:"fuel"`
+	DTMin         jsonNum   `json:"dT_min"`
+	LMTD          jsonNum   `json:"lmtd"`
+	UA            jsonNum   `json:"UA"`
+	// Ports are the stream names by role, in the order the file lists them.
+	Ports map[string][]string `json:"ports"`
 }
 
 type jsonUnitU struct {
@@ -80,6 +100,31 @@ type jsonMeasurement struct {
 	Suspect     bool    `json:"suspect"`
 }
 
+// jsonTotals are the whole file's totals (model.TotalResults) in SI base units: W, and
+// efficiency and heat_rate as ratios (heat_rate J/J; 1 J/J is 3600 kJ/kWh).
+type jsonTotals struct {
+	PowerOut   jsonNum `json:"power_out"`
+	PowerIn    jsonNum `json:"power_in"`
+	NetPower   jsonNum `json:"net_power"`
+	HeatIn     jsonNum `json:"heat_in"`
+	HeatOut    jsonNum `json:"heat_out"`
+	Efficiency jsonNum `json:"efficiency"`
+	HeatRate   jsonNum `json:"heat_rate"`
+}
+
+// jsonExpect is one expectation and its verdict, values in SI base units. Tolerance is the
+// one an equality was judged with (written, or the file's relative tolerance); null for a
+// comparison. Solved is null when the value could not be checked.
+type jsonExpect struct {
+	Subject   string  `json:"subject"`
+	Property  string  `json:"property"`
+	Operator  string  `json:"operator"`
+	Value     jsonNum `json:"value"`
+	Tolerance jsonNum `json:"tolerance"`
+	Solved    jsonNum `json:"solved"`
+	Passed    bool    `json:"passed"`
+}
+
 // checked is one file after the whole check: notation, then the solver.
 type checked struct {
 	lang  *lang.Result
@@ -98,7 +143,7 @@ func checkModel(ctx context.Context, path string, src []byte, display *units.Sys
 		return c
 	}
 	if display != nil {
-		lr.Model.Display = *display
+		lr.Model.SetSystem(*display)
 	}
 	c.res, c.rec = reconcile.Solve(ctx, lr.Model, solve.Options{})
 	c.diags = append(c.diags, c.res.Diags...)
@@ -119,7 +164,13 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 	m := c.model
 	for i, s := range m.Streams {
 		r := c.res.Streams[i]
-		js := jsonStream{Name: s.Name, Label: s.Label, M: jsonNum(r.M), P: nan, T: nan, H: nan, S: nan, X: nan}
+		val := func(name string) jsonNum {
+			v, _, _ := c.res.Value(m, model.Subject{Kind: model.StreamSubject, Index: i}, name)
+			return jsonNum(v)
+		}
+		js := jsonStream{Name: s.Name, Label: s.Label, M: jsonNum(r.M), P: nan, T: nan, H: nan, S: nan, X: nan,
+			Tsat: val("Tsat"), Superheat: val("superheat"), Subcooling: val("subcooling"), V: val("v"), Rho: val("rho"), VolFlow: val("vol_flow"),
+			Given: givenNames(s)}
 		if r.HasState {
 			st := r.State
 			js.P, js.T, js.H, js.S, js.Phase = jsonNum(st.P), jsonNum(st.T), jsonNum(st.H), jsonNum(st.S), st.Phase.String()
@@ -134,8 +185,35 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 	for i, u := range m.Units {
 		r := c.res.Units[i]
 		ru := func(name string) jsonNum { return jsonNum(c.rec.Unit(i, name)) }
-		fr.units = append(fr.units, jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly,
-			U: jsonUnitU{Q: ru("duty"), W: ru("power"), Sgen: ru("sgen")}})
+		val := func(name string) jsonNum {
+			v, _, _ := c.res.Value(m, model.Subject{Kind: model.UnitSubject, Index: i}, name)
+			return jsonNum(v)
+		}
+		ju := jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly,
+			Dp: val("dp"), DpHot: val("dp_hot"), DpCold: val("dp_cold"), Efficiency: val("efficiency"), Fuel: val("fuel"),
+			DTMin: val("dT_min"), LMTD: val("lmtd"), UA: val("UA"), Ports: map[string][]string{}}
+		for _, p := range u.Ports {
+			ju.Ports[p.Role] = append(ju.Ports[p.Role], m.Streams[p.Stream].Name)
+		}
+		ju.U = jsonUnitU{Q: ru("duty"), W: ru("power"), Sgen: ru("sgen")}
+		fr.units = append(fr.units, ju)
+	}
+	total := func(name string) jsonNum {
+		v, _, _ := c.res.Value(m, model.Subject{Kind: model.TotalSubject}, name)
+		return jsonNum(v)
+	}
+	fr.totals = &jsonTotals{PowerOut: total("power_out"), PowerIn: total("power_in"), NetPower: total("net_power"),
+		HeatIn: total("heat_in"), HeatOut: total("heat_out"), Efficiency: total("efficiency"), HeatRate: total("heat_rate")}
+	for i, ex := range m.Expects {
+		je := jsonExpect{Subject: subjectName(m, ex), Property: ex.Prop, Operator: ex.Op.String(), Value: jsonNum(ex.Value), Tolerance: nan, Solved: nan}
+		if i < len(c.res.Expects) {
+			er := c.res.Expects[i]
+			je.Tolerance, je.Solved, je.Passed = jsonNum(er.Tol), jsonNum(er.Solved), er.Passed
+			if er.Passed {
+				fr.passes = append(fr.passes, passed{span: ex.Span, text: er.Text})
+			}
+		}
+		fr.expects = append(fr.expects, je)
 	}
 	fr.recon = reconJSON(c.rec)
 	fr.table = streamTable(m, c.res, c.rec)
@@ -145,7 +223,23 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 			fr.table += "\n" + alignRows(tableRows(t))
 		}
 	}
+	if t := report.TotalTable(m, c.res); t != nil {
+		fr.table += totalsLine(m, c.res)
+	}
 	return fr
+}
+
+// totalsLine is the one line of the file's totals that follows the stream table.
+func totalsLine(m *model.Model, r *solve.Result) string {
+	disp := m.Shown()
+	var parts []string
+	for _, spec := range model.TotalResults {
+		v, _, _ := r.Value(m, model.Subject{Kind: model.TotalSubject}, spec.Name)
+		if !math.IsNaN(v) {
+			parts = append(parts, spec.Name+" "+spec.Show(disp, v))
+		}
+	}
+	return "  totals: " + strings.Join(parts, ", ") + "\n"
 }
 
 func reconJSON(r *reconcile.Result) *jsonRecon {
@@ -159,6 +253,34 @@ func reconJSON(r *reconcile.Result) *jsonRecon {
 	return out
 }
 
+// givenNames lists the properties a stream's file block gave, in the order of the catalogue.
+func givenNames(s *model.Stream) []string {
+	out := []string{}
+	if s.VolFlow != nil {
+		out = append(out, "vol_flow")
+	}
+	for p := model.Prop(0); p < model.NumProps; p++ {
+		if s.Given[p] != nil {
+			out = append(out, p.String())
+		}
+	}
+	return out
+}
+
+// subjectName is the stream or unit an expectation names, or model.TotalName.
+func subjectName(m *model.Model, ex *model.Expect) string {
+	sub := ex.Subject()
+	switch {
+	case sub.Kind == model.TotalSubject:
+		return model.TotalName
+	case sub.Kind == model.UnitSubject && sub.Index < len(m.Units):
+		return m.Units[sub.Index].Name
+	case sub.Kind == model.StreamSubject && sub.Index >= 0 && sub.Index < len(m.Streams):
+		return m.Streams[sub.Index].Name
+	}
+	return ""
+}
+
 var nan = jsonNum(math.NaN())
 
 // streamTable is the compact text table of solved streams that ends hmb check's text output,
@@ -167,7 +289,7 @@ func streamTable(m *model.Model, r *solve.Result, rec *reconcile.Result) string 
 	if len(m.Streams) == 0 {
 		return ""
 	}
-	disp := units.Display{System: m.Display, Atm: m.Atm}
+	disp := m.Shown()
 	cols := []string{"flow", "p", "T", "h", "s", "x"}
 	head := []string{"stream"}
 	for _, c := range cols {

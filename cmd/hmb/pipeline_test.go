@@ -242,7 +242,7 @@ func FuzzCheck(f *testing.F) {
 	f.Fuzz(func(t *testing.T, src []byte) {
 		fr := checkSource("fuzz.hmb", src, nil)
 		var out strings.Builder
-		writeText(&out, fr)
+		writeText(&out, fr, textOptions{})
 		out.WriteString(fr.table)
 		if err := writeJSON(&out, []*fileResult{fr}); err != nil {
 			t.Fatal(err)

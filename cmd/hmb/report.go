@@ -54,7 +54,7 @@ func loadReportInput(fset *flag.FlagSet, sys systemFlags, stderr io.Writer) (*re
 	}
 	c := checkModel(context.Background(), path, src, display)
 	if c.model == nil {
-		writeText(stderr, &fileResult{path: path, src: src, diags: c.diags})
+		writeText(stderr, &fileResult{path: path, src: src, diags: c.diags}, textOptions{})
 		return nil, &exitError{code: 1, msg: fmt.Sprintf("%s could not be read into a model", path)}
 	}
 	lines := source.New(path, src)

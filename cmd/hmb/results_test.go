@@ -1,7 +1,9 @@
 package main
 
 import (
+	"bytes"
 	"context"
+	"encoding/json"
 	"fmt"
 	"math"
 	"os"
@@ -56,10 +58,14 @@ func TestEveryResultRoundTrips(t *testing.T) {
 						continue // not solved, or a quality of a single-phase state
 					}
 					tol := "0.1 %"
-					if r.Dim == units.Temperature { // a % of a temperature is refused (HMB319)
+					if r.Dim == units.Temperature || v == 0 { // a % of a temperature is refused (HMB319)
 						tol = disp.Delta(r.Dim, 0.05)
 					}
-					fmt.Fprintf(&b, "expect %s %s = %s within %s\n", name, r.Name, disp.Show(r.Dim, v), tol)
+					shown := disp.Show(r.Dim, v)
+					if r.Delta {
+						shown = disp.Delta(r.Dim, v)
+					}
+					fmt.Fprintf(&b, "expect %s %s = %s within %s\n", name, r.Name, shown, tol)
 					total++
 				}
 			}
@@ -69,6 +75,7 @@ func TestEveryResultRoundTrips(t *testing.T) {
 			for i, u := range m.Units {
 				write(u.Name, model.Subject{Kind: model.UnitSubject, Index: i})
 			}
+			write(model.TotalName, model.Subject{Kind: model.TotalSubject})
 			text := b.String()
 			c2 := checkModel(context.Background(), path, []byte(text), nil)
 			for _, d := range c2.diags {
@@ -87,5 +94,101 @@ func TestEveryResultRoundTrips(t *testing.T) {
 	}
 	if total < 500 {
 		t.Errorf("only %d expectations written", total)
+	}
+}
+
+// TestCheckJSONResults checks the JSON contract of issue 12 on testdata/cli/plant.hmb: the
+// derived stream values, each unit's drop, efficiency and ports, the file's totals and every
+// expectation with its verdict, in SI base units under exactly these keys. References from
+// python3-iapws 1.5.2 (W = IAPWS97, P in MPa): MS at 43 barg (4.401325 MPa) has
+// W(P=4.401325, x=0).T = 529.2412401419949 K, so 693.15 K is 163.90875985800506 K of superheat;
+// FW at 45 barg, 378.15 K: W(P=4.601325, x=0).T - 378.15 = 153.80039034401625 K of subcooling,
+// W(P=4.601325, T=378.15).rho = 956.8254978100406 kg/m3, 30 t/h of it 0.008709355417896438 m3/s.
+func TestCheckJSONResults(t *testing.T) {
+	t.Chdir(filepath.Join("..", ".."))
+	var out, errb bytes.Buffer
+	if code := run([]string{"check", "--format", "json", "testdata/cli/plant.hmb"}, nil, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	var doc struct {
+		Files []struct {
+			Streams      []map[string]any
+			Units        []map[string]any
+			Totals       map[string]any
+			Expectations []map[string]any
+		}
+	}
+	if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	f := doc.Files[0]
+	num := func(what string, v any, want, rel float64) {
+		t.Helper()
+		g, ok := v.(float64)
+		if !ok || math.Abs(g-want) > rel*math.Abs(want) {
+			t.Errorf("%s = %v, want %.10g", what, v, want)
+		}
+	}
+	null := func(what string, obj map[string]any, key string) {
+		t.Helper()
+		if v, ok := obj[key]; !ok || v != nil {
+			t.Errorf("%s %s = %v (present %v), want null", what, key, v, ok)
+		}
+	}
+	fw, ms, ps := f.Streams[0], f.Streams[1], f.Streams[2]
+	num("MS Tsat", ms["Tsat"], 529.2412401419949, 1e-8)
+	num("MS superheat", ms["superheat"], 163.90875985800506, 1e-7)
+	null("MS", ms, "subcooling")
+	num("FW subcooling", fw["subcooling"], 153.80039034401625, 1e-7)
+	null("FW", fw, "superheat")
+	num("FW rho", fw["rho"], 956.8254978100406, 1e-7)
+	num("FW v", fw["v"], 1/956.8254978100406, 1e-7)
+	num("FW vol_flow", fw["vol_flow"], 0.008709355417896438, 1e-7)
+	if g := fmt.Sprint(fw["given"]); g != "[flow p T]" {
+		t.Errorf("FW given %s", g)
+	}
+	if g := fmt.Sprint(ms["given"]); g != "[T]" {
+		t.Errorf("MS given %s", g)
+	}
+	if g := fmt.Sprint(ps["given"]); g != "[flow p]" {
+		t.Errorf("PS given %s", g)
+	}
+	b1, bp := f.Units[0], f.Units[1]
+	num("B1 dp", b1["dp"], 2e5, 1e-9)
+	num("B1 efficiency", b1["efficiency"], 0.88, 1e-12)
+	num("B1 fuel", b1["fuel"], b1["Q"].(float64)/0.88, 1e-9)
+	num("BP dp", bp["dp"], 39e5, 1e-9) // 43 barg - 4 barg
+	num("BP efficiency", bp["efficiency"], 0.72, 1e-12)
+	for _, k := range []string{"dp_hot", "dp_cold", "dT_min", "lmtd", "UA", "fuel"} {
+		null("BP", bp, k)
+	}
+	if g := fmt.Sprint(bp["ports"]); g != "map[in:[MS] out:[PS]]" {
+		t.Errorf("BP ports %s", g)
+	}
+	tot := f.Totals
+	num("net_power", tot["net_power"], bp["W"].(float64), 1e-12)
+	num("power_out", tot["power_out"], bp["W"].(float64), 1e-12)
+	num("power_in", tot["power_in"], 0, 0)
+	num("heat_in", tot["heat_in"], b1["Q"].(float64), 1e-12)
+	num("heat_out", tot["heat_out"], 0, 0)
+	num("efficiency", tot["efficiency"], bp["W"].(float64)/b1["Q"].(float64), 1e-12)
+	num("heat_rate", tot["heat_rate"], b1["Q"].(float64)/bp["W"].(float64), 1e-12)
+	if len(f.Expectations) != 6 {
+		t.Fatalf("%d expectations", len(f.Expectations))
+	}
+	e := f.Expectations[3] // expect PS superheat = 60 dK within 1 dK
+	if e["subject"] != "PS" || e["property"] != "superheat" || e["operator"] != "=" || e["passed"] != true {
+		t.Errorf("expectation %v", e)
+	}
+	num("value", e["value"], 60, 1e-12)
+	num("tolerance", e["tolerance"], 1, 1e-12)
+	num("solved", e["solved"], ps["superheat"].(float64), 1e-12)
+	if e := f.Expectations[0]; e["subject"] != "total" || e["property"] != "net_power" || e["operator"] != ">" || e["tolerance"] != nil {
+		t.Errorf("expectation %v", e)
+	}
+	for _, e := range f.Expectations {
+		if len(e) != 7 {
+			t.Errorf("expectation keys %v", e)
+		}
 	}
 }

@@ -42,20 +42,26 @@
   "Face for unit spellings after a number (psig, kJ/kg, °F).")
 
 (defconst hmb--kinds
-  '("mixer" "splitter" "valve" "heater" "cooler" "boiler" "turbine" "pump" "exchanger" "flash"
-    "desuperheater")
+  '("boiler" "cooler" "desuperheater" "exchanger" "flash" "heater" "mixer" "pump" "splitter"
+    "turbine" "valve")
   "Unit kinds: the equipment a block can declare.")
 
-(defconst hmb--settings '("title" "display" "atmosphere" "elevation" "tolerance" "ambient" "project" "document" "revision" "prepared_by" "checked_by" "date")
+(defconst hmb--settings
+  '("title" "display" "atmosphere" "elevation" "tolerance" "ambient" "project" "document"
+    "revision" "prepared_by" "checked_by" "date" "display_flow" "display_vol_flow"
+    "display_pressure" "display_temperature" "display_enthalpy" "display_entropy"
+    "display_volume" "display_density" "display_power" "display_duty" "display_heat_rate")
   "Top-level settings.")
 
 (defconst hmb--roles
-  '("in" "out" "hot_in" "hot_out" "cold_in" "cold_out" "vapor" "vapour" "liquid" "steam" "water")
+  '("in" "out" "steam" "water" "hot_in" "hot_out" "cold_in" "cold_out" "vapor" "liquid" "vapour")
   "Port roles: the entries of a unit block that name streams.")
 
 (defconst hmb--properties
-  '("flow" "p" "T" "h" "s" "x" "v" "fluid" "efficiency" "duty" "power" "heat_loss" "dp" "dp_hot"
-    "dp_cold" "fuel" "sgen" "T_boundary" "arrangement" "min_approach")
+  '("flow" "p" "T" "h" "s" "x" "v" "rho" "vol_flow" "Tsat" "superheat" "subcooling" "power_out"
+    "power_in" "net_power" "heat_in" "heat_out" "efficiency" "heat_rate" "duty" "dp" "fuel"
+    "T_boundary" "sgen" "heat_loss" "dp_hot" "dp_cold" "arrangement" "min_approach" "dT_min"
+    "lmtd" "UA" "power" "fluid")
   "Stream properties, unit parameters and results.")
 
 (defconst hmb--name "\\(?:\\sw\\|\\s_\\)+")

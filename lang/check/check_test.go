@@ -106,9 +106,9 @@ func TestDiagnostics(t *testing.T) {
 		{"unit where a stream is needed", "stream A, B\nvalve V { in A; out B }\nvalve W { in V; out A }",
 			[]want{{code: "HMB211", at: "W { in |V", msg: "V is a valve, not a stream"}}, false},
 		{"unknown stream property in an expectation", "stream A, B\nvalve V { in A; out B }\nexpect A pres > 1 bar",
-			[]want{{code: "HMB212", at: "pres", msg: "a stream has no property pres (it has flow, p, T, h, s, x or v); did you mean p?", fix: "p"}}, false},
+			[]want{{code: "HMB212", at: "pres", msg: "a stream has no property pres (it has flow, p, T, h, s, x, v, rho, vol_flow, Tsat, superheat or subcooling); did you mean p?", fix: "p"}}, false},
 		{"unknown unit result in an expectation", "stream A, B\nturbine T1 { in A; out B }\nexpect T1 powr > 1 kW",
-			[]want{{code: "HMB212", at: "powr", msg: "turbine T1 has no result powr (it has power, efficiency or sgen); did you mean power?", fix: "power"}}, false},
+			[]want{{code: "HMB212", at: "powr", msg: "turbine T1 has no result powr (it has power, efficiency, dp or sgen); did you mean power?", fix: "power"}}, false},
 
 		// Values and units.
 		{"wrong dimension", "stream A { p 40 lbm/h }",
@@ -204,7 +204,7 @@ func TestDiagnostics(t *testing.T) {
 			[]want{{code: "HMB307", at: "0.1", msg: "the tolerance 0.1 of p has no unit: give it in % or in a unit of pressure, such as bar, kPa, psia or psig"}}, false},
 		{"unknown setting with a suggestion", "dispaly US",
 			[]want{{code: "HMB308", at: "dispaly", fix: "display",
-				msg: "unknown setting dispaly (settings: title, display, atmosphere, elevation, tolerance, ambient, project, document, revision, prepared_by, checked_by, date); did you mean display?"}}, false},
+				msg: "unknown setting dispaly (settings: title, display, atmosphere, elevation, tolerance, ambient, project, document, revision, prepared_by, checked_by, date, display_QUANTITY); did you mean display?"}}, false},
 		{"setting twice", "display US\ndisplay SI",
 			[]want{{code: "HMB309", at: "US\n|display", msg: "display is set twice", rel: "display US"}}, false},
 		{"atmosphere and elevation", "atmosphere 14.2 psia\nelevation 300 m",

@@ -3,6 +3,7 @@ package check
 import (
 	"hmb/lang/ast"
 	"hmb/thermo/model"
+	"hmb/thermo/units"
 )
 
 var ops = map[string]model.Op{"=": model.Eq, "<": model.Lt, "<=": model.Le, ">": model.Gt, ">=": model.Ge}
@@ -44,6 +45,9 @@ func (c *checker) expects() {
 	}
 }
 
+// TotalResults lists what an expectation may check on the whole file (model.TotalName).
+var TotalResults = resultNames(model.TotalResults)
+
 func (c *checker) expect(e *ast.Expect) {
 	if x := c.lowerExpect(e); x != nil {
 		c.m.Expects = append(c.m.Expects, x)
@@ -54,14 +58,23 @@ func (c *checker) expect(e *ast.Expect) {
 // left out of the model.
 func (c *checker) lowerExpect(e *ast.Expect) *model.Expect {
 	o := c.lookup(e.Target)
-	if o == nil {
+	if o == nil && e.Target.Name != model.TotalName {
 		c.undefined(e.Target, false, true)
 		return nil
 	}
 	prop := e.Prop.Name
 	x := &model.Expect{Stream: -1, Unit: -1, Prop: prop, Op: ops[e.Op], Spelling: spelling(e.Value), Span: span(e)}
 	var spec *model.ResultSpec
-	if o.IsUnit {
+	name := e.Target.Name
+	switch {
+	case o == nil: // the whole file: a stream or unit named total would have been found first
+		if spec = findSpec(model.TotalResults, prop); spec == nil {
+			d := c.errorf(CodeUnknownResult, e.Prop, "the totals have no result %s (they have %s)", prop, joinOr(TotalResults))
+			suggest(d, prop, TotalResults)
+			return nil
+		}
+		x.Total = true
+	case o.IsUnit:
 		if o.Kind == nil {
 			return nil // reported at the declaration
 		}
@@ -72,7 +85,7 @@ func (c *checker) lowerExpect(e *ast.Expect) *model.Expect {
 			return nil
 		}
 		x.Unit = o.Index
-	} else {
+	default:
 		if spec = model.StreamResult(prop); spec == nil {
 			d := c.errorf(CodeUnknownResult, e.Prop, "a stream has no property %s (it has %s)", prop, joinOr(StreamProps))
 			suggestProp(d, prop, StreamProps)
@@ -81,8 +94,15 @@ func (c *checker) lowerExpect(e *ast.Expect) *model.Expect {
 		x.Stream = o.Index
 	}
 	dim := spec.Dim
-	what := prop + " of " + o.Name
-	v, u, ok := c.convert(e.Value, dim, what, false)
+	what := prop + " of " + name
+	var v float64
+	var u units.Unit
+	var ok bool
+	if spec.Delta {
+		v, u, ok = c.convertDelta(e.Value, dim, what)
+	} else {
+		v, u, ok = c.convert(e.Value, dim, what, false)
+	}
 	if !ok {
 		return nil
 	}
@@ -90,7 +110,7 @@ func (c *checker) lowerExpect(e *ast.Expect) *model.Expect {
 	// pressure or temperature below zero, or a quality outside 0..1, can never be met.
 	// (Enthalpy and entropy may be below zero: IAPWS-IF97 sets them near zero at the
 	// triple-point liquid, and liquid at 0 °C lies slightly below.)
-	if sp, isProp := propByName[prop]; !o.IsUnit && isProp && sp != model.H && sp != model.S && (v < 0 || sp == model.X && v > 1) {
+	if sp, isProp := propByName[prop]; o != nil && !o.IsUnit && isProp && sp != model.H && sp != model.S && (v < 0 || sp == model.X && v > 1) {
 		c.plausible(sp, e.Value, v, u)
 		return nil
 	}
@@ -103,7 +123,7 @@ func (c *checker) lowerExpect(e *ast.Expect) *model.Expect {
 			return nil
 		}
 	}
-	if x.Unit < 0 && x.Stream < 0 {
+	if x.Unit < 0 && x.Stream < 0 && !x.Total {
 		return nil // the target was left out of the model; its errors are reported
 	}
 	return x
@@ -139,4 +159,13 @@ func joinOr(s []string) string {
 		out += w
 	}
 	return out + " or " + s[len(s)-1]
+}
+
+func findSpec(rs []model.ResultSpec, name string) *model.ResultSpec {
+	for i := range rs {
+		if rs[i].Name == name {
+			return &rs[i]
+		}
+	}
+	return nil
 }

@@ -148,6 +148,19 @@ func (c *checker) convert(q *ast.Quantity, want units.Dim, what string, delta bo
 	return u.ToSI(q.Value, c.m.Atm), u, true
 }
 
+// convertDelta converts q to SI as a difference of dimension want (a pressure drop, a
+// superheat): a temperature difference may be written in K or dK, F or dF; a pressure
+// difference in a unit that does not read from the atmosphere.
+func (c *checker) convertDelta(q *ast.Quantity, want units.Dim, what string) (si float64, u units.Unit, ok bool) {
+	if want == units.Temperature {
+		if u, ok = c.unitOf(q, want, what, true); !ok {
+			return 0, u, false
+		}
+		return u.DeltaToSI(q.Value), u, true
+	}
+	return c.convert(q, want, what, true)
+}
+
 // noReading reports a pressure written in a unit that states differences only.
 func (c *checker) noReading(q *ast.Quantity, u units.Unit, what string) {
 	var words, spell []string

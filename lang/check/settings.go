@@ -11,7 +11,9 @@ import (
 )
 
 // Settings lists the top-level settings, for completion and suggestions.
-var Settings = []string{"title", "display", "atmosphere", "elevation", "tolerance", "ambient",
+var Settings = append(slices.Clone(baseSettings), displayKeys()...)
+
+var baseSettings = []string{"title", "display", "atmosphere", "elevation", "tolerance", "ambient",
 	"project", "document", "revision", "prepared_by", "checked_by", "date"}
 
 // sheetFields are the settings of the report's title block: each takes a string.
@@ -22,6 +24,49 @@ var sheetFields = map[string]func(*model.Sheet) *string{
 	"prepared_by": func(s *model.Sheet) *string { return &s.PreparedBy },
 	"checked_by":  func(s *model.Sheet) *string { return &s.CheckedBy },
 	"date":        func(s *model.Sheet) *string { return &s.Date },
+}
+
+// DisplayPrefix starts a setting that chooses the unit one quantity is shown in:
+// display_flow t/h, display_pressure barg.
+const DisplayPrefix = "display_"
+
+// DisplayQuantities are the quantities a file may choose a display unit for, with the
+// dimension each is measured in; the setting is DisplayPrefix and the name. A chosen
+// temperature scale also shows the temperature differences.
+var DisplayQuantities = []struct {
+	Name string
+	Dim  units.Dim
+	Doc  string
+}{
+	{"flow", units.MassFlow, "mass flows"},
+	{"vol_flow", units.VolumeFlow, "volumetric flows"},
+	{"pressure", units.Pressure, "pressures (a gauge unit shows gauge readings) and pressure drops"},
+	{"temperature", units.Temperature, "temperatures and temperature differences"},
+	{"enthalpy", units.SpecificEnergy, "specific enthalpies"},
+	{"entropy", units.SpecificEntropy, "specific entropies"},
+	{"volume", units.SpecificVolume, "specific volumes"},
+	{"density", units.Density, "densities"},
+	{"power", units.ShaftPower, "shaft powers (turbines, pumps, the totals' power)"},
+	{"duty", units.Power, "heat duties, fuel and the totals' heat"},
+	{"heat_rate", units.HeatRate, "the heat rate"},
+}
+
+func displayKeys() []string {
+	out := make([]string, len(DisplayQuantities))
+	for i, q := range DisplayQuantities {
+		out[i] = DisplayPrefix + q.Name
+	}
+	return out
+}
+
+// DisplayQuantity is the quantity a display_ setting names, or nil.
+func DisplayQuantity(key string) (name string, dim units.Dim, ok bool) {
+	for _, q := range DisplayQuantities {
+		if DisplayPrefix+q.Name == key {
+			return q.Name, q.Dim, true
+		}
+	}
+	return "", 0, false
 }
 
 // settings reads the top-level settings first, wherever they stand: gauge pressures anywhere in
@@ -39,7 +84,7 @@ func (c *checker) settings() {
 				c.errorf(CodeUnknownSetting, s, "%s needs a block: %s NAME { ... } with its streams", key, key)
 				continue
 			}
-			d := c.errorf(CodeUnknownSetting, s.Key, "unknown setting %s (settings: %s)", key, strings.Join(Settings, ", "))
+			d := c.errorf(CodeUnknownSetting, s.Key, "unknown setting %s (settings: %s)", key, strings.Join(baseSettings, ", ")+", "+DisplayPrefix+"QUANTITY")
 			suggest(d, key, append(slices.Clone(Settings), kindNames()...))
 			continue
 		}
@@ -62,6 +107,10 @@ func (c *checker) settings() {
 func (c *checker) setting(s *ast.Setting) {
 	key := s.Key.Name
 	bad := func(want string) { c.errorf(CodeSettingValue, s, "%s takes %s", key, want) }
+	if _, _, ok := DisplayQuantity(key); ok {
+		c.displayUnit(s)
+		return
+	}
 	if field, ok := sheetFields[key]; ok {
 		if s.Str == nil {
 			bad(fmt.Sprintf("a string: %s \"...\"", key))
@@ -165,4 +214,31 @@ func kindNames() []string {
 	}
 	slices.Sort(names)
 	return names
+}
+
+// displayUnit reads display_NAME UNIT: the unit one quantity is shown in, whatever the
+// display system.
+func (c *checker) displayUnit(s *ast.Setting) {
+	name, dim, _ := DisplayQuantity(s.Key.Name)
+	if s.Word == nil {
+		c.errorf(CodeSettingValue, s, "%s takes a unit of %s: %s%s %s", s.Key.Name, dim, DisplayPrefix, name, examples(dim))
+		return
+	}
+	q := &ast.Quantity{NumPos: s.Word.Pos(), Value: 1, Unit: s.Word}
+	u, ok := c.unitIn(q, dim, s.Key.Name, false, false)
+	if !ok {
+		return
+	}
+	if !u.Level() {
+		var alts []string
+		for _, r := range u.Readings() {
+			alts = append(alts, r.Symbol())
+		}
+		d := c.errorf(CodeNoReading, s.Word, "%s %s does not say whether pressures are shown absolute or gauge: write %s", s.Key.Name, s.Word.Name, joinOr(alts))
+		if len(alts) > 0 {
+			d.Fix = alts[0]
+		}
+		return
+	}
+	c.m.Pick.Set(dim, u)
 }

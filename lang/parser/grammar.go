@@ -16,7 +16,7 @@ import (
 //
 //	stream  = "stream" Ident {"," Ident} [String] ["{"]    (several names: bare declarations)
 //	unit    = Ident Ident [String] "{"                   (kind, name, label)
-//	setting = Ident (String | quantity | Ident)
+//	setting = Ident (String | quantity | Ident | Word)   (display_flow t/h: a unit spelling alone)
 //	expect  = "expect" Ident Ident op quantity [tol] [String]
 //	given   = Ident quantity [tol]                       (in a block: p 150 psig ± 2 %)
 //	names   = Ident Ident {"," Ident}                    (in a block: in S6, S7; fluid water)
@@ -59,7 +59,7 @@ type gSetting struct {
 	Key   lexer.Token  `parser:"@Ident"`
 	Str   *lexer.Token `parser:"( @String"`
 	Qty   *gQuantity   `parser:"| @@"`
-	Ident *lexer.Token `parser:"| @Ident )"`
+	Ident *lexer.Token `parser:"| @(Ident | Word) )"`
 }
 
 type gExpect struct {

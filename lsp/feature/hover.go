@@ -166,16 +166,16 @@ func display(res *lang.Result) units.Display {
 	if res.Model == nil {
 		return units.Display{}
 	}
-	return units.Display{System: res.Model.Display, Atm: res.Model.Atm}
+	return res.Model.Shown()
 }
 
 // show writes an SI value in the display unit of its dimension; unknown values say so rather
 // than print NaN.
-func show(d units.Display, dim units.Dim, v float64) string {
+func show(d units.Display, r *model.ResultSpec, v float64) string {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "unknown"
 	}
-	return d.Show(dim, v)
+	return r.Show(d, v)
 }
 
 // StreamHover is the Markdown description of a stream: every stream result of the catalogue,
@@ -196,9 +196,12 @@ func StreamHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 	b.WriteString("\n\n| | value | from |\n|---|---:|---|\n")
 	for _, r := range model.StreamResults {
 		v, _, _ := sol.Value(res.Model, sub, r.Name)
-		val := show(disp, r.Dim, v)
-		if r.Name == "x" && math.IsNaN(v) && sr.HasState {
+		val := show(disp, &r, v)
+		switch {
+		case r.Name == "x" && sol.Lacks(res.Model, sub, r.Name):
 			val = "none (single phase)"
+		case sol.Lacks(res.Model, sub, r.Name):
+			val = "none (" + sr.State.Phase.String() + ")"
 		}
 		fmt.Fprintf(&b, "| %s | %s | %s |\n", r.Name, val, mdCell(source(sr, r.Name, v)))
 	}
@@ -263,12 +266,13 @@ func UnitHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 	u := &sol.Units[o.Index]
 	disp := display(res)
 	b.WriteString("\n\n| balance | in | out |\n|---|---:|---:|\n")
-	fmt.Fprintf(&b, "| mass | %s | %s |\n", show(disp, units.MassFlow, u.MassIn), show(disp, units.MassFlow, u.MassOut))
-	fmt.Fprintf(&b, "| energy | %s | %s |\n", show(disp, units.Power, u.EnergyIn), show(disp, units.Power, u.EnergyOut))
+	mass, energy := &model.ResultSpec{Dim: units.MassFlow}, &model.ResultSpec{Dim: units.Power}
+	fmt.Fprintf(&b, "| mass | %s | %s |\n", show(disp, mass, u.MassIn), show(disp, mass, u.MassOut))
+	fmt.Fprintf(&b, "| energy | %s | %s |\n", show(disp, energy, u.EnergyIn), show(disp, energy, u.EnergyOut))
 	sub := model.Subject{Kind: model.UnitSubject, Index: o.Index}
 	for _, r := range res.Model.Results(sub) {
 		if v, _, _ := sol.Value(res.Model, sub, r.Name); !math.IsNaN(v) {
-			fmt.Fprintf(&b, "\n%s %s", r.Name, show(disp, r.Dim, v))
+			fmt.Fprintf(&b, "\n%s %s", r.Name, show(disp, &r, v))
 		}
 	}
 	// A closure is known only for a balance that was redundant: it checks the givens.

@@ -28,7 +28,18 @@ type ParamSpec struct {
 type ResultSpec struct {
 	Name string
 	Dim  units.Dim
-	Doc  string
+	// Delta marks a difference (a pressure drop, a superheat): shown and written without offset
+	// or atmosphere, like a ParamSpec's Delta.
+	Delta bool
+	Doc   string
+}
+
+// Show writes a value of the result in d: a difference (Delta) without offset or gauge reading.
+func (r *ResultSpec) Show(d units.Display, si float64) string {
+	if r.Delta {
+		return d.Delta(r.Dim, si)
+	}
+	return d.Show(r.Dim, si)
 }
 
 // Kind is a kind of equipment: the ports it has, the parameters it takes and the results the
@@ -74,6 +85,11 @@ var StreamResults = []ResultSpec{
 	{Name: "s", Dim: units.SpecificEntropy, Doc: "specific entropy"},
 	{Name: "x", Dim: units.Dimensionless, Doc: "quality: the vapour mass fraction of wet steam, 0 (saturated liquid) to 1 (saturated vapour)"},
 	{Name: "v", Dim: units.SpecificVolume, Doc: "specific volume"},
+	{Name: "rho", Dim: units.Density, Doc: "density"},
+	{Name: "vol_flow", Dim: units.VolumeFlow, Doc: "volumetric flow at the stream's state: flow over density"},
+	{Name: "Tsat", Dim: units.Temperature, Doc: "saturation temperature at the stream's pressure (none above the critical pressure)"},
+	{Name: "superheat", Dim: units.Temperature, Delta: true, Doc: "degrees of superheat, T - Tsat: vapour only"},
+	{Name: "subcooling", Dim: units.Temperature, Delta: true, Doc: "degrees of subcooling, Tsat - T: liquid only"},
 }
 
 // StreamResult returns the spec of a stream result, or nil.
@@ -85,7 +101,24 @@ type SubjectKind uint8
 const (
 	StreamSubject SubjectKind = iota
 	UnitSubject
+	// TotalSubject is the whole file: TotalResults, named "total" in an expectation.
+	TotalSubject
 )
+
+// TotalName is the subject an expectation names for the whole file's totals.
+const TotalName = "total"
+
+// TotalResults are the results of the whole file: the totals of its units' shaft powers and
+// heat duties (see solve.Totals for which units count where).
+var TotalResults = []ResultSpec{
+	{Name: "power_out", Dim: units.ShaftPower, Doc: "shaft power produced by every turbine"},
+	{Name: "power_in", Dim: units.ShaftPower, Doc: "shaft power absorbed by every pump"},
+	{Name: "net_power", Dim: units.ShaftPower, Doc: "power_out - power_in"},
+	{Name: "heat_in", Dim: units.Power, Doc: "heat added by boilers and heaters (and exchangers heated from outside the file)"},
+	{Name: "heat_out", Dim: units.Power, Doc: "heat removed by coolers and condensers (exchangers cooled from outside the file)"},
+	{Name: "efficiency", Dim: units.Dimensionless, Doc: "net_power / heat_in: the cycle's thermal efficiency"},
+	{Name: "heat_rate", Dim: units.HeatRate, Doc: "heat_in / net_power: heat per unit of net work (kJ/kWh or Btu/kWh)"},
+}
 
 // Subject is a stream or a unit of a model, by index into Model.Streams or Model.Units.
 type Subject struct {
@@ -95,6 +128,9 @@ type Subject struct {
 
 // Subject is what the expectation checks.
 func (e *Expect) Subject() Subject {
+	if e.Total {
+		return Subject{Kind: TotalSubject}
+	}
 	if e.Unit >= 0 {
 		return Subject{Kind: UnitSubject, Index: e.Unit}
 	}
@@ -113,6 +149,8 @@ func (m *Model) Results(sub Subject) []ResultSpec {
 		if sub.Index >= 0 && sub.Index < len(m.Units) && m.Units[sub.Index] != nil && m.Units[sub.Index].Kind != nil {
 			return m.Units[sub.Index].Kind.Results
 		}
+	case TotalSubject:
+		return TotalResults
 	}
 	return nil
 }
@@ -144,6 +182,7 @@ var (
 	lossR    = ResultSpec{Name: "heat_loss", Dim: units.Power, Doc: "heat lost to surroundings, as given (zero when not given)"}
 	dutyIn   = ResultSpec{Name: "duty", Dim: units.Power, Doc: "heat added to the fluid"}
 	effIsenR = ResultSpec{Name: "efficiency", Dim: units.Dimensionless, Doc: "isentropic efficiency, given or solved"}
+	dpR      = ResultSpec{Name: "dp", Dim: units.Pressure, Delta: true, Doc: "pressure drop: the lowest inlet pressure less the highest outlet pressure (below zero for a rise)"}
 
 	// tBound is where a duty crosses the boundary, for the entropy generation (see the README).
 	tBound = ParamSpec{Name: "T_boundary", Dim: units.Temperature, Doc: "temperature at which the duty crosses the unit's boundary (heating medium, flue gas, cooling water), for the entropy generation"}
@@ -153,31 +192,31 @@ var (
 var Kinds = map[string]*Kind{
 	"mixer": {Name: "mixer", Doc: "adiabatic mixing chamber, open feedwater heater or deaerator: inlets mix into one outlet",
 		Ports: []PortSpec{ins, out}, Params: []ParamSpec{loss, dp},
-		Results: []ResultSpec{lossR, sgen}},
+		Results: []ResultSpec{lossR, dpR, sgen}},
 	"splitter": {Name: "splitter", Doc: "tee: outlets leave at the inlet state",
-		Ports: []PortSpec{in, outs}, Results: []ResultSpec{sgen}},
+		Ports: []PortSpec{in, outs}, Results: []ResultSpec{dpR, sgen}},
 	"valve": {Name: "valve", Doc: "throttling valve: enthalpy conserved",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{dp}, Results: []ResultSpec{sgen}},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{dp}, Results: []ResultSpec{dpR, sgen}},
 	"heater": {Name: "heater", Doc: "heat added to one stream",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp, tBound}, Results: []ResultSpec{dutyIn, sgen}},
+		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp, tBound}, Results: []ResultSpec{dutyIn, dpR, sgen}},
 	"cooler": {Name: "cooler", Doc: "heat removed from one stream",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dp, tBound},
-		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, sgen}},
+		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dpR, sgen}},
 	"boiler": {Name: "boiler", Doc: "steam generator: feedwater heated to steam",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency: duty over fuel input"},
 			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}, tBound},
 		Results: []ResultSpec{dutyIn,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency, duty over fuel input, given or solved"},
-			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input, given or solved"}, sgen}},
+			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input, given or solved"}, dpR, sgen}},
 	"turbine": {Name: "turbine", Doc: "adiabatic expansion producing shaft power",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{effIsen,
 			{Name: "power", Dim: units.ShaftPower, Doc: "shaft power produced"}},
-		Results: []ResultSpec{{Name: "power", Dim: units.ShaftPower, Doc: "shaft power produced"}, effIsenR, sgen}},
+		Results: []ResultSpec{{Name: "power", Dim: units.ShaftPower, Doc: "shaft power produced"}, effIsenR, dpR, sgen}},
 	"pump": {Name: "pump", Doc: "adiabatic compression of liquid taking shaft power",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{effIsen,
 			{Name: "power", Dim: units.ShaftPower, Doc: "shaft power absorbed"}},
-		Results: []ResultSpec{{Name: "power", Dim: units.ShaftPower, Doc: "shaft power absorbed"}, effIsenR, sgen}},
+		Results: []ResultSpec{{Name: "power", Dim: units.ShaftPower, Doc: "shaft power absorbed"}, effIsenR, dpR, sgen}},
 	"exchanger": {Name: "exchanger", Doc: "two-stream heat exchanger without mixing (closed feedwater heater, condenser)",
 		Ports: []PortSpec{
 			{Role: "hot_in", Inlet: true, Doc: "hot-side inlet"}, {Role: "hot_out", Doc: "hot-side outlet"},
@@ -187,13 +226,19 @@ var Kinds = map[string]*Kind{
 			{Name: "dp_cold", Dim: units.Pressure, Delta: true, Doc: "cold-side pressure drop"},
 			{Name: "arrangement", Words: []string{"counterflow", "parallel"}, Doc: "flow arrangement: counterflow (the default) or parallel"},
 			{Name: "min_approach", Dim: units.Temperature, Delta: true, Doc: "least temperature difference wanted along the profile: a warning below it"}},
-		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat passed from hot to cold side"}, lossR, sgen}},
+		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat passed from hot to cold side"}, lossR,
+			{Name: "dp_hot", Dim: units.Pressure, Delta: true, Doc: "hot-side pressure drop, inlet less outlet"},
+			{Name: "dp_cold", Dim: units.Pressure, Delta: true, Doc: "cold-side pressure drop, inlet less outlet"},
+			{Name: "dT_min", Dim: units.Temperature, Delta: true, Doc: "least hot-minus-cold temperature difference along the profile, zone by zone (below zero: a cross)"},
+			{Name: "lmtd", Dim: units.Temperature, Delta: true, Doc: "log-mean temperature difference, zone-weighted where a side changes phase: duty over UA"},
+			{Name: "UA", Dim: units.EntropyRate, Doc: "overall conductance: the sum over the zones of each zone's duty over its log-mean temperature difference"},
+			sgen}},
 	"flash": {Name: "flash", Doc: "flash tank or separator: feed splits into saturated vapour and saturated liquid at the tank pressure",
 		Ports:  []PortSpec{ins, {Role: "vapor", Doc: "saturated vapour outlet"}, {Role: "liquid", Doc: "saturated liquid outlet"}},
-		Params: []ParamSpec{loss}, Results: []ResultSpec{lossR, sgen}},
+		Params: []ParamSpec{loss}, Results: []ResultSpec{lossR, dpR, sgen}},
 	"desuperheater": {Name: "desuperheater", Doc: "spray water into steam to reach a target outlet state",
 		Ports: []PortSpec{{Role: "steam", Inlet: true, Doc: "superheated steam inlet"},
 			{Role: "water", Inlet: true, Doc: "spray water inlet"}, out},
 		Params:  []ParamSpec{loss, {Name: "dp", Dim: units.Pressure, Delta: true, Doc: "pressure drop, steam inlet to outlet"}},
-		Results: []ResultSpec{lossR, sgen}},
+		Results: []ResultSpec{lossR, dpR, sgen}},
 }

@@ -82,6 +82,9 @@ type Stream struct {
 	Fluid string // "water" (liquid or steam: IAPWS-IF97)
 	Span  Span   // the stream's name where it is declared
 	Given [NumProps]*Given
+	// VolFlow is a flow given in volume units (flow 120 gpm), m3/s: the solver takes the mass
+	// flow from it and the stream's density. Given[Flow] is nil when it is set.
+	VolFlow *Given
 }
 
 // Port connects a unit to a stream.
@@ -142,6 +145,7 @@ type Expect struct {
 	Stream   int    // index into Model.Streams, or -1
 	Unit     int    // index into Model.Units, or -1
 	Prop     string // a stream Prop name ("x", "T", ...) or a unit result ("duty", "power", "sgen")
+	Total    bool   // the subject is the whole file (TotalName): Prop is one of TotalResults
 	Op       Op
 	Value    float64 // SI
 	Tol      float64 // absolute SI tolerance (Eq only)
@@ -158,11 +162,14 @@ type Sheet struct {
 
 // Model is a whole calc file, ready to solve.
 type Model struct {
-	Title     string
-	Sheet     Sheet
-	Display   units.System // the unit system results are shown in
-	Atm       float64      // site atmosphere, Pa (gauge pressures are already converted)
-	Tolerance float64      // relative closure tolerance of balances (fraction, e.g. 0.001)
+	Title   string
+	Sheet   Sheet
+	Display units.System // the unit system results are shown in
+	// Pick holds the units the file chose per quantity (display_flow t/h), shown instead of
+	// Display's defaults; Shown joins them.
+	Pick      units.Picks
+	Atm       float64 // site atmosphere, Pa (gauge pressures are already converted)
+	Tolerance float64 // relative closure tolerance of balances (fraction, e.g. 0.001)
 	// Ambient is the temperature of the surroundings, K: heat losses leave at it. Zero means
 	// DefaultAmbient.
 	Ambient float64
@@ -186,4 +193,20 @@ func (m *Model) AmbientOr() float64 {
 		return m.Ambient
 	}
 	return DefaultAmbient
+}
+
+// Shown is how the model's results are shown: its unit system, the units it chose per quantity
+// and its site atmosphere. Every output formats through it.
+func (m *Model) Shown() units.Display {
+	if m == nil {
+		return units.Display{}
+	}
+	return units.Display{System: m.Display, Atm: m.Atm, Pick: m.Pick}
+}
+
+// SetSystem shows the model in sys (a command line's --si or --us), keeping only the units it
+// chose per quantity that belong to sys.
+func (m *Model) SetSystem(sys units.System) {
+	m.Display = sys
+	m.Pick = m.Pick.Keep(sys)
 }

@@ -82,6 +82,8 @@ func expectText(in *Input, ex *model.Expect) string {
 	m := in.Model
 	subject := "?"
 	switch {
+	case ex.Total:
+		subject = model.TotalName
 	case ex.Stream >= 0 && ex.Stream < len(m.Streams) && m.Streams[ex.Stream] != nil:
 		subject = m.Streams[ex.Stream].Name
 	case ex.Unit >= 0 && ex.Unit < len(m.Units) && m.Units[ex.Unit] != nil:
@@ -105,8 +107,15 @@ func expectValue(in *Input, ex *model.Expect) string {
 		return Unsolved
 	}
 	q := newQuantities(in.Model)
-	if u, err := units.Lookup(ex.Spelling); err == nil && ex.Spelling != "" && u.Measures(spec.Dim) {
+	u, err := units.Lookup(ex.Spelling)
+	fits := err == nil && ex.Spelling != "" && (u.Measures(spec.Dim) || spec.Delta && spec.Dim == units.Temperature && u.Dim() == units.TemperatureDiff)
+	switch {
+	case fits && spec.Delta:
+		return units.ShowDelta(u, v)
+	case fits:
 		return units.ShowIn(u, v, q.atm)
+	case spec.Delta:
+		return q.disp().Delta(spec.Dim, v)
 	}
 	return q.show(spec.Dim, v)
 }
@@ -300,11 +309,8 @@ func summary(in *Input) ([]summaryItem, []expectView) {
 // values marked, every value titled with where it came from.
 func tableViews(in *Input) []tableView {
 	var out []tableView
-	for _, t := range []Table{StreamTable(in.Model, in.Result), UnitTable(in.Model, in.Result)} {
-		v := tableView{Name: t.Name, Heading: strings.ToUpper(t.Name[:1]) + t.Name[1:]}
-		if t.Name == "units" {
-			v.Note = UnitNotes
-		}
+	for _, t := range Tables(in.Model, in.Result) {
+		v := tableView{Name: t.Name, Heading: strings.ToUpper(t.Name[:1]) + t.Name[1:], Note: Notes(t)}
 		for _, c := range t.Cols {
 			if c.Unit == "C" || c.Unit == "F" {
 				c.Unit = "°" + c.Unit

@@ -2,6 +2,7 @@ package report
 
 import (
 	"math"
+	"strings"
 
 	"hmb/thermo/model"
 	"hmb/thermo/solve"
@@ -40,8 +41,9 @@ func sig(v float64, n int) string { return units.Format(v, n) }
 // quantities writes SI values in a model's display units, through the units package's one
 // formatter of quantities.
 type quantities struct {
-	sys units.System
-	atm float64
+	sys  units.System
+	atm  float64
+	pick units.Picks // the units the file chose per quantity
 }
 
 func newQuantities(m *model.Model) quantities {
@@ -49,17 +51,33 @@ func newQuantities(m *model.Model) quantities {
 	if !(atm > 0) {
 		atm = units.StandardAtmosphere
 	}
-	return quantities{sys: m.Display, atm: atm}
+	return quantities{sys: m.Display, atm: atm, pick: m.Pick}
 }
 
-func (q quantities) disp() units.Display { return units.Display{System: q.sys, Atm: q.atm} }
+func (q quantities) disp() units.Display {
+	return units.Display{System: q.sys, Atm: q.atm, Pick: q.pick}
+}
 
-func (q quantities) unit(d units.Dim) units.Unit { return q.sys.Default(d) }
+func (q quantities) unit(d units.Dim) units.Unit { return q.disp().Unit(d) }
 
 func (q quantities) conv(d units.Dim, si float64) float64 { return q.disp().Value(d, si) }
 
 // cell writes a value for a table cell whose heading names the unit.
 func (q quantities) cell(d units.Dim, si float64) string { return q.disp().Number(d, si) }
+
+// deltaUnit is the unit a difference of dimension d is shown in (dK, bar for bar(g)).
+func (q quantities) deltaUnit(d units.Dim) units.Unit {
+	if d == units.Temperature {
+		return q.unit(units.TemperatureDiff)
+	}
+	return q.unit(d).DeltaUnit()
+}
+
+// deltaCell writes a difference for a table cell whose heading names deltaUnit(d).
+func (q quantities) deltaCell(d units.Dim, si float64) string {
+	u := q.deltaUnit(d)
+	return units.Number(u, u.DeltaFromSI(si))
+}
 
 // show writes a value with its unit.
 func (q quantities) show(d units.Dim, si float64) string { return q.disp().Show(d, si) }
@@ -135,10 +153,69 @@ func streamProvenance(s *model.Stream, r *solve.Result, i int, name string) (giv
 	return false, src.Label
 }
 
+// detailColumns are the stream results the stream conditions table shows, with their
+// headings; a cell is blank where the state has no such value (the superheat of a liquid).
+var detailColumns = []struct{ name, heading string }{
+	{"Tsat", "Tsat"}, {"superheat", "superheat"}, {"subcooling", "subcooling"},
+	{"v", "v"}, {"rho", "rho"}, {"vol_flow", "volume flow"},
+}
+
+// ConditionTable is one row per stream: its saturation temperature, superheat or subcooling,
+// specific volume, density and volumetric flow, and which of its properties the file gave (the
+// rest were solved).
+func ConditionTable(m *model.Model, r *solve.Result) Table {
+	q := newQuantities(m)
+	t := Table{Name: "stream conditions", Cols: []Column{{Name: "stream"}}}
+	for _, c := range detailColumns {
+		spec := model.StreamResult(c.name)
+		u := q.unit(spec.Dim)
+		if spec.Delta {
+			u = q.deltaUnit(spec.Dim)
+		}
+		t.Cols = append(t.Cols, Column{Name: c.heading, Unit: u.Symbol(), Num: true})
+	}
+	t.Cols = append(t.Cols, Column{Name: "given"})
+	for i, s := range m.Streams {
+		if s == nil {
+			continue
+		}
+		sub := model.Subject{Kind: model.StreamSubject, Index: i}
+		row := []string{s.Name}
+		for _, c := range detailColumns {
+			v, spec, _ := r.Value(m, sub, c.name)
+			switch {
+			case r.Lacks(m, sub, c.name):
+				row = append(row, "") // the state has none
+			case spec.Delta:
+				row = append(row, q.deltaCell(spec.Dim, v))
+			default:
+				row = append(row, q.cell(spec.Dim, v))
+			}
+		}
+		t.Rows = append(t.Rows, append(row, strings.Join(Given(s), ", ")))
+	}
+	return t
+}
+
+// Given lists the properties a stream's block gives, in catalogue order: vol_flow for a flow
+// given in volume units.
+func Given(s *model.Stream) []string {
+	out := []string{}
+	if s.VolFlow != nil {
+		out = append(out, "vol_flow")
+	}
+	for p := model.Prop(0); p < model.NumProps; p++ {
+		if s.Given[p] != nil {
+			out = append(out, p.String())
+		}
+	}
+	return out
+}
+
 // unitColumns are the unit results the unit table shows, with their headings. A cell is blank
 // where the unit's kind has no such result.
 var unitColumns = []struct{ name, heading string }{
-	{"duty", "duty"}, {"power", "shaft power"}, {"sgen", "entropy generation"},
+	{"duty", "duty"}, {"power", "shaft power"}, {"efficiency", "efficiency"}, {"dp", "pressure drop"}, {"sgen", "entropy generation"},
 }
 
 // UnitTable is one row per unit: name, label, kind, duty, shaft power and entropy generation.
@@ -148,7 +225,11 @@ func UnitTable(m *model.Model, r *solve.Result) Table {
 	q := newQuantities(m)
 	t := Table{Name: "units", Cols: []Column{{Name: "unit"}, {Name: "label"}, {Name: "kind"}}}
 	for _, c := range unitColumns {
-		t.Cols = append(t.Cols, Column{Name: c.heading, Unit: q.unit(resultDim(c.name)).Symbol(), Num: true})
+		u := q.unit(resultDim(c.name))
+		if c.name == "dp" {
+			u = q.deltaUnit(units.Pressure)
+		}
+		t.Cols = append(t.Cols, Column{Name: c.heading, Unit: u.Symbol(), Num: true})
 	}
 	for i, u := range m.Units {
 		if u == nil {
@@ -171,6 +252,9 @@ func UnitTable(m *model.Model, r *solve.Result) Table {
 				given[3+j], source[3+j] = true, "given "+u.Name+" "+c.name
 			}
 			cell := q.cell(spec.Dim, v)
+			if spec.Delta {
+				cell = q.deltaCell(spec.Dim, v)
+			}
 			if c.name == "sgen" && r != nil && i < len(r.Units) && r.Units[i].SgenFluidOnly && !math.IsNaN(v) {
 				cell += FluidOnlyMark
 			}
@@ -193,9 +277,118 @@ func resultDim(name string) units.Dim {
 	return units.Dimensionless
 }
 
+// ExchangerTable is one row per exchanger: its duty, the pressure drop of each side, the least
+// temperature difference along its profile and where it lies, the zone-weighted LMTD and UA.
+// Nil when the file has no exchanger.
+func ExchangerTable(m *model.Model, r *solve.Result) *Table {
+	q := newQuantities(m)
+	t := &Table{Name: "exchangers", Cols: []Column{{Name: "unit"}}}
+	cols := []string{"duty", "dp_hot", "dp_cold", "dT_min", "lmtd", "UA"}
+	k := model.Kinds["exchanger"]
+	for _, c := range cols {
+		spec := k.Result(c)
+		u := q.unit(spec.Dim)
+		if spec.Delta {
+			u = q.deltaUnit(spec.Dim)
+		}
+		t.Cols = append(t.Cols, Column{Name: c, Unit: u.Symbol(), Num: true})
+		if c == "dT_min" {
+			t.Cols = append(t.Cols, Column{Name: "dT_min at"})
+		}
+	}
+	for i, u := range m.Units {
+		if u == nil || u.Kind != k {
+			continue
+		}
+		sub := model.Subject{Kind: model.UnitSubject, Index: i}
+		row := []string{u.Name}
+		for _, c := range cols {
+			v, spec, _ := r.Value(m, sub, c)
+			if spec.Delta {
+				row = append(row, q.deltaCell(spec.Dim, v))
+			} else {
+				row = append(row, q.cell(spec.Dim, v))
+			}
+			if c == "dT_min" {
+				at := ""
+				if r != nil && i < len(r.Units) {
+					at = r.Units[i].DTMinAt
+				}
+				row = append(row, at)
+			}
+		}
+		t.Rows = append(t.Rows, row)
+	}
+	if len(t.Rows) == 0 {
+		return nil
+	}
+	return t
+}
+
+// TotalTable is one row per total of the whole file (model.TotalResults): its value and unit.
+// Nil when no unit contributes to any (no turbine, pump, boiler, heater, cooler or exchanger
+// with a side from outside the file).
+func TotalTable(m *model.Model, r *solve.Result) *Table {
+	if r == nil || r.Totals == nil {
+		return nil
+	}
+	tot := r.Totals
+	if tot.PowerOut == 0 && tot.PowerIn == 0 && tot.HeatIn == 0 && tot.HeatOut == 0 {
+		return nil
+	}
+	q := newQuantities(m)
+	t := &Table{Name: "totals", Cols: []Column{{Name: "total"}, {Name: "value", Num: true}, {Name: "unit"}}}
+	for _, spec := range model.TotalResults {
+		v, _, _ := r.Value(m, model.Subject{Kind: model.TotalSubject}, spec.Name)
+		t.Rows = append(t.Rows, []string{spec.Name, q.cell(spec.Dim, v), q.unit(spec.Dim).Symbol()})
+	}
+	return t
+}
+
+// Tables are the result tables of a file in the order every output shows them: streams, their
+// conditions, units, then the exchangers and the totals when there are any.
+func Tables(m *model.Model, r *solve.Result) []Table {
+	out := []Table{StreamTable(m, r), ConditionTable(m, r), UnitTable(m, r)}
+	if t := ExchangerTable(m, r); t != nil {
+		out = append(out, *t)
+	}
+	if t := TotalTable(m, r); t != nil {
+		out = append(out, *t)
+	}
+	return out
+}
+
+// Notes is the footnote of a table, "" for none.
+func Notes(t Table) string {
+	switch t.Name {
+	case "units":
+		return UnitNotes
+	case "stream conditions":
+		return ConditionNotes
+	case "exchangers":
+		return ExchangerNotes
+	case "totals":
+		return TotalNotes
+	}
+	return ""
+}
+
+// ConditionNotes explains the stream conditions table, for a footnote.
+const ConditionNotes = "Superheat is shown for vapour, subcooling for liquid, neither for wet steam or above the critical pressure; " +
+	"the volume flow is at the stream's own state. Given lists what the file states; the rest was solved."
+
+// ExchangerNotes explains the exchanger table, for a footnote.
+const ExchangerNotes = "The profile is split into zones where a side changes phase; dT_min is the least hot-minus-cold difference over them, " +
+	"LMTD the duty over UA, and UA the sum of each zone's duty over its log-mean temperature difference."
+
+// TotalNotes says which units the totals count, for a footnote.
+const TotalNotes = "Power out is the turbines', power in the pumps'; heat in is the boilers' and heaters' duty (the heat the water takes, not the fuel's), " +
+	"heat out the coolers'; an exchanger counts only when one side comes from and returns to outside the file (a surface condenser's cooling water). " +
+	"Efficiency is net power over heat in, heat rate its inverse."
+
 // UnitNotes explains the signs of the unit table, for a footnote.
 const UnitNotes = "Duty is heat added (heater, boiler), removed (cooler) or passed hot to cold side (exchanger); " +
-	"shaft power is produced by a turbine and absorbed by a pump. " +
+	"shaft power is produced by a turbine and absorbed by a pump; the pressure drop is the lowest inlet's pressure less the highest outlet's (below zero: a rise). " +
 	"Entropy generation counts heat losses leaving at the ambient temperature and a duty crossing at the unit's T_boundary; " +
 	"marked *, a duty crosses at no stated T_boundary and only what happens inside the fluid is counted."
 

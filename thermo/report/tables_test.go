@@ -52,9 +52,11 @@ func TestUnitTable(t *testing.T) {
 		sys  units.System
 		want [][]string
 	}{
-		{units.SI, [][]string{{"V1", "valve", "valve", "", "", "1.4581"}, {"T1", "turbine", "turbine", "", "826.64", "0.64793"}}},
-		{units.US, [][]string{{"V1", "valve", "valve", "", "", sig(1458.098052*3600/1055.05585262*5/9, 5)},
-			{"T1", "turbine", "turbine", "", sig(826642.77/745.69987158227022, 5), sig(2*(7979.6349156572335-7655.671765571876)*3600/1055.05585262*5/9, 5)}}},
+		// Pressure drops: the valve 1 MPa to 200 kPa, the turbine 200 kPa to 10 kPa; 1 psi =
+		// 6894.757293168 Pa (NIST SP 811 (2008) Appendix B.8).
+		{units.SI, [][]string{{"V1", "valve", "valve", "", "", "", "800.00", "1.4581"}, {"T1", "turbine", "turbine", "", "826.64", "0.8000", "190.00", "0.64793"}}},
+		{units.US, [][]string{{"V1", "valve", "valve", "", "", "", sig(800e3/6894.757293168, 5), sig(1458.098052*3600/1055.05585262*5/9, 5)},
+			{"T1", "turbine", "turbine", "", sig(826642.77/745.69987158227022, 5), "0.8000", sig(190e3/6894.757293168, 5), sig(2*(7979.6349156572335-7655.671765571876)*3600/1055.05585262*5/9, 5)}}},
 	} {
 		in := testInput(t, tt.sys)
 		tab := UnitTable(in.Model, in.Result)
@@ -63,6 +65,42 @@ func TestUnitTable(t *testing.T) {
 				t.Errorf("%s row %d:\n got %q\nwant %q", tt.sys, i, tab.Rows[i], tt.want[i])
 			}
 		}
+	}
+}
+
+// TestConditionTable checks the derived stream values against python3-iapws 1.5.2 (IAPWS97
+// class): IAPWS97(P=1, x=0).T = 453.0356323914666 K, IAPWS97(P=1, T=523.15).v =
+// 0.23273893329992676 m3/kg; IAPWS97(P=0.2, x=0).T = 393.3615459364888 K, B's state as in
+// TestStreamTable, IAPWS97(P=0.2, h=2943.2221652336634).v = 1.1660053036947147;
+// IAPWS97(P=0.01, x=0).T = 318.9575482070235 K, IAPWS97(P=0.01, h=2529.900779622026).v =
+// 14.339484984362544. The volume flows are 2 kg/s times v, per hour.
+func TestConditionTable(t *testing.T) {
+	in := testInput(t, units.SI)
+	tab := ConditionTable(in.Model, in.Result)
+	want := [][]string{
+		{"A", sig(453.0356323914666-273.15, 5), sig(523.15-453.0356323914666, 5), "", sig(0.23273893329992676, 5), sig(1/0.23273893329992676, 5), sig(2*0.23273893329992676*3600, 5), "flow, p, T"},
+		{"B", sig(393.3615459364888-273.15, 5), sig(509.19490955867684-393.3615459364888, 5), "", sig(1.1660053036947147, 5), sig(1/1.1660053036947147, 5), sig(2*1.1660053036947147*3600, 5), "p"},
+		{"C", sig(318.9575482070235-273.15, 5), "", "", sig(14.339484984362544, 5), sig(1/14.339484984362544, 5), sig(2*14.339484984362544*3600, 5), "p"},
+	}
+	for i := range want {
+		if strings.Join(tab.Rows[i], "|") != strings.Join(want[i], "|") {
+			t.Errorf("row %d:\n got %q\nwant %q", i, tab.Rows[i], want[i])
+		}
+	}
+	heads := []string{}
+	for _, c := range tab.Cols {
+		heads = append(heads, c.Heading())
+	}
+	if got := strings.Join(heads, "|"); got != "stream|Tsat (C)|superheat (dK)|subcooling (dK)|v (m3/kg)|rho (kg/m3)|volume flow (m3/h)|given" {
+		t.Errorf("headings %s", got)
+	}
+	// The totals: the turbine's power out, nothing else.
+	tot := TotalTable(in.Model, in.Result)
+	if tot == nil || tot.Rows[0][0] != "power_out" || tot.Rows[0][1] != "826.64" || tot.Rows[2][1] != "826.64" || tot.Rows[5][1] != Unsolved {
+		t.Errorf("totals %v", tot)
+	}
+	if ExchangerTable(in.Model, in.Result) != nil {
+		t.Error("an exchanger table without exchangers")
 	}
 }
 
@@ -101,15 +139,16 @@ func TestCSVReadsBack(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// The empty line between the sections is skipped by encoding/csv.
-	if len(recs) != 2+3+2+2+2+1 {
+	// The empty line between the sections is skipped by encoding/csv: streams, their
+	// conditions, units, totals, the basis.
+	if len(recs) != 2+3+2+3+2+2+2+7+2+1 {
 		t.Fatalf("%d records:\n%q", len(recs), recs)
 	}
 	if recs[0][2] != "flow" || recs[1][2] != "lbm/h" || recs[1][3] != "psia" || recs[2][1] != "header <steam>" {
 		t.Errorf("stream header %q %q", recs[0], recs[1])
 	}
-	if recs[5][0] != "unit" || recs[6][3] != "Btu/h" || recs[6][5] != "Btu/(h R)" {
-		t.Errorf("unit header %q %q", recs[5], recs[6])
+	if recs[10][0] != "unit" || recs[11][3] != "Btu/h" || recs[11][6] != "psi" || recs[11][7] != "Btu/(h R)" {
+		t.Errorf("unit header %q %q", recs[10], recs[11])
 	}
 	numeric := func(recs [][]string, cols ...int) {
 		for _, rec := range recs {
@@ -124,10 +163,12 @@ func TestCSVReadsBack(t *testing.T) {
 		}
 	}
 	numeric(recs[2:5], 2, 3, 4, 5, 6, 7)
-	numeric(recs[7:9], 3, 4, 5)
+	numeric(recs[7:10], 1, 2, 3, 4, 5, 6)
+	numeric(recs[12:14], 3, 4, 5, 6, 7)
+	numeric(recs[16:23], 1)
 	// The default ambient, 25 C = 77 F (t_F = 1.8 t_C + 32, NIST SP 811 (2008), 4.2.1.1).
-	if recs[9][0] != "ambient" || recs[10][0] != "F" || recs[11][0] != "77.000" {
-		t.Errorf("basis %q %q %q", recs[9], recs[10], recs[11])
+	if recs[23][0] != "ambient" || recs[24][0] != "F" || recs[25][0] != "77.000" {
+		t.Errorf("basis %q %q %q", recs[23], recs[24], recs[25])
 	}
 	// 2 kg/s = 2 / 0.45359237 * 3600 lbm/h (international pound, 1959), to 4 figures.
 	if got, _ := parseNum(recs[2][2]); math.Abs(got/(2/0.45359237*3600)-1) > 5e-4 {
@@ -151,8 +192,9 @@ func TestHTMLTablesWellFormed(t *testing.T) {
 			cells++
 		}
 	})
-	// Two heading rows per table, then 3 streams of 9 cells and 2 units of 6.
-	if rows != 2*2+3+2 || cells != 3*9+2*6 {
+	// Two heading rows per table, then 3 streams of 9 cells, their 3 conditions of 8, 2 units
+	// of 8 and 7 totals of 3.
+	if rows != 4*2+3+3+2+7 || cells != 3*9+3*8+2*8+7*3 {
 		t.Errorf("%d rows, %d cells", rows, cells)
 	}
 	if !strings.Contains(b.String(), "header &lt;steam&gt;") || !strings.Contains(b.String(), "Test line | valve") {
@@ -170,7 +212,7 @@ func TestMarkdownEscapesPipes(t *testing.T) {
 		t.Errorf("title line %q", strings.SplitN(b.String(), "\n", 2)[0])
 	}
 	for _, line := range strings.Split(b.String(), "\n") {
-		if strings.HasPrefix(line, "| A ") && strings.Count(line, "|") != 10 {
+		if strings.HasPrefix(line, "| A ") && strings.Count(line, "|") != 10 && strings.Count(line, "|") != 9 {
 			t.Errorf("row has %d pipes: %s", strings.Count(line, "|"), line)
 		}
 	}

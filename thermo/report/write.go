@@ -36,9 +36,14 @@ func basisTable(m *model.Model) Table {
 // basis says in one line what the numbers are in.
 func basis(m *model.Model) string {
 	q := newQuantities(m)
-	s := fmt.Sprintf("%s units; pressures absolute", q.sys)
-	if q.atm != units.StandardAtmosphere {
-		pu := q.unit(units.Pressure)
+	pu := q.unit(units.Pressure)
+	reading := "absolute"
+	if pu.Gauge() {
+		reading = "gauge"
+		pu = pu.DeltaUnit()
+	}
+	s := fmt.Sprintf("%s units; pressures %s", q.sys, reading)
+	if q.atm != units.StandardAtmosphere || reading == "gauge" {
 		s += fmt.Sprintf(" (site atmosphere %s %s)", sig(pu.FromSI(q.atm, q.atm), 4), pu.Symbol())
 	}
 	tu := q.unit(units.Temperature)
@@ -54,15 +59,15 @@ func WriteMarkdown(w io.Writer, in *Input) error {
 	bw := bufio.NewWriter(w)
 	fmt.Fprintf(bw, "# %s\n\n", mdEscape(Title(in.Model, in.Path)))
 	fmt.Fprintf(bw, "%s.\n", basis(in.Model))
-	for _, t := range []Table{StreamTable(in.Model, in.Result), UnitTable(in.Model, in.Result)} {
+	for _, t := range Tables(in.Model, in.Result) {
 		fmt.Fprintf(bw, "\n## %s\n\n", strings.ToUpper(t.Name[:1])+t.Name[1:])
 		if len(t.Rows) == 0 {
 			fmt.Fprintf(bw, "(no %s)\n", t.Name)
 			continue
 		}
 		writeMDTable(bw, t)
-		if t.Name == "units" {
-			fmt.Fprintf(bw, "\n%s\n", UnitNotes)
+		if n := Notes(t); n != "" {
+			fmt.Fprintf(bw, "\n%s\n", n)
 		}
 	}
 	return bw.Flush()
@@ -127,7 +132,7 @@ func WriteCSV(w io.Writer, in *Input) error {
 		return fmt.Errorf("nothing to tabulate: the file could not be read into a model")
 	}
 	bw := bufio.NewWriter(w)
-	for k, t := range []Table{StreamTable(in.Model, in.Result), UnitTable(in.Model, in.Result), basisTable(in.Model)} {
+	for k, t := range append(Tables(in.Model, in.Result), basisTable(in.Model)) {
 		if k > 0 {
 			bw.WriteString("\n")
 		}

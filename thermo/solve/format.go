@@ -9,11 +9,14 @@ import (
 // formatter writes the solver's values in its messages through the units package's one
 // formatter of quantities, in the model's display units or in the unit the user wrote.
 type formatter struct {
-	sys units.System
-	atm float64
+	sys  units.System
+	atm  float64
+	pick units.Picks // the units the file chose per quantity
 }
 
-func (f formatter) disp() units.Display { return units.Display{System: f.sys, Atm: f.atm} }
+func (f formatter) disp() units.Display {
+	return units.Display{System: f.sys, Atm: f.atm, Pick: f.pick}
+}
 
 // q writes an SI value of dimension d in the display unit: "540.00 C", "0.9500".
 func (f formatter) q(d units.Dim, si float64) string { return f.disp().Show(d, si) }
@@ -43,7 +46,7 @@ func (f formatter) unitFor(d units.Dim, spelling string) units.Unit {
 			return u
 		}
 	}
-	return f.sys.Default(d)
+	return f.disp().Unit(d)
 }
 
 // written echoes a value the user wrote (a given, an expectation's target) in the unit written,
@@ -64,12 +67,44 @@ func (f formatter) writtenQ(d units.Dim, si float64, spelling string) string {
 	return units.ShowIn(f.unitFor(d, spelling), si, f.atm)
 }
 
+// writtenDeltaQ writes a solved difference in the unit the user wrote, with the formatter's
+// digits.
+func (f formatter) writtenDeltaQ(d units.Dim, si float64, spelling string) string {
+	if d == units.Dimensionless && spelling != "%" {
+		return f.frac(si)
+	}
+	return units.ShowDelta(f.deltaUnitFor(d, spelling), si)
+}
+
+// deltaUnitFor is the unit a difference of dimension d is written in: the user's spelling when
+// it is a unit of d (or of a temperature difference, dK for a temperature), else the display
+// unit of the difference.
+func (f formatter) deltaUnitFor(d units.Dim, spelling string) units.Unit {
+	if d == units.Temperature {
+		if u, err := units.Lookup(spelling); spelling != "" && err == nil && (u.Dim() == d || u.Dim() == units.TemperatureDiff) {
+			return u
+		}
+		return f.disp().Unit(units.TemperatureDiff)
+	}
+	return f.unitFor(d, spelling)
+}
+
 // writtenDelta echoes a tolerance the user wrote, as a difference in the unit written.
 func (f formatter) writtenDelta(d units.Dim, si float64, spelling string) string {
 	if d == units.Dimensionless && spelling != "%" {
 		return units.Trim(si)
 	}
 	u := f.unitFor(d, spelling)
+	return join(units.Trim(u.DeltaFromSI(si)), units.DeltaSymbol(u))
+}
+
+// writtenDiff echoes a difference the user wrote as the value of a difference (a superheat of
+// 40 dK, a drop of 2 bar): in the unit written, or the display unit of the difference.
+func (f formatter) writtenDiff(d units.Dim, si float64, spelling string) string {
+	if d == units.Dimensionless && spelling != "%" {
+		return units.Trim(si)
+	}
+	u := f.deltaUnitFor(d, spelling)
 	return join(units.Trim(u.DeltaFromSI(si)), units.DeltaSymbol(u))
 }
 

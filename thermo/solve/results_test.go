@@ -82,7 +82,7 @@ func TestValue(t *testing.T) {
 	for _, s := range m.Results(unit) {
 		names = append(names, s.Name)
 	}
-	if !slices.Equal(names, []string{"heat_loss", "sgen"}) {
+	if !slices.Equal(names, []string{"heat_loss", "dp", "sgen"}) {
 		t.Errorf("mixer results %v", names)
 	}
 }

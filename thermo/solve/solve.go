@@ -110,6 +110,10 @@ type Result struct {
 	X      []float64
 	Work   Work
 	run    *solveRun // for UnitAt
+	// Totals are the whole file's powers and duties (totals.go); nil until solved.
+	Totals *Totals
+	// Expects holds the verdict on each of Model.Expects, in the same order (expect.go).
+	Expects []ExpectResult
 }
 
 // Solve finds every stream's state and every unit's duty, and reports what is missing,
@@ -144,7 +148,7 @@ func Solve(ctx context.Context, m *model.Model, opt Options) *Result {
 	if !(relTol > 0) {
 		relTol = 0.001
 	}
-	s := &solveRun{m: m, res: res, ctx: ctx, opt: opt, relTol: relTol, f: formatter{sys: m.Display, atm: m.Atm}, explained: map[int]bool{}}
+	s := &solveRun{m: m, res: res, ctx: ctx, opt: opt, relTol: relTol, f: formatter{sys: m.Display, atm: m.Atm, pick: m.Pick}, explained: map[int]bool{}}
 	s.run()
 	return res
 }
@@ -231,6 +235,7 @@ func (s *solveRun) run() {
 	}
 	s.overSpecified()
 	s.unitResults()
+	s.totals()
 	s.negativeFlows()
 	s.provenance()
 	s.expectations()

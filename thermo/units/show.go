@@ -10,11 +10,38 @@ import (
 // hints, messages, reports) is written here, with its digits and its unit label, so that what
 // hmb prints reads back through Lookup as the same quantity.
 
-// Display is how results are shown: the unit system and the site atmosphere gauge readings are
-// taken against.
+// Display is how results are shown: the unit system, the units a file chose for some
+// quantities, and the site atmosphere gauge readings are taken against.
 type Display struct {
 	System System
 	Atm    float64 // Pa; zero or below means the standard atmosphere
+	// Pick holds the unit chosen for a dimension (a file's display_flow t/h), shown instead of
+	// the system's default; the zero Unit where none was chosen.
+	Pick Picks
+}
+
+// Picks are units chosen per dimension, indexed by Dim; the zero Unit where none was chosen.
+type Picks [numDims]Unit
+
+// Set chooses u for the dimension it measures; false when u is the bare number, which cannot
+// be chosen.
+func (p *Picks) Set(d Dim, u Unit) bool {
+	if int(d) >= numDims || u == (Unit{}) {
+		return false
+	}
+	p[d] = u
+	return true
+}
+
+// Keep drops the picks that are not units of sys (the command line asked for US units, the
+// file chose t/h).
+func (p Picks) Keep(sys System) Picks {
+	for d, u := range p {
+		if u != (Unit{}) && !sys.Has(u) {
+			p[d] = Unit{}
+		}
+	}
+	return p
 }
 
 func (d Display) atm() float64 {
@@ -24,8 +51,22 @@ func (d Display) atm() float64 {
 	return StandardAtmosphere
 }
 
-// Unit is the unit a dimension is shown in.
-func (d Display) Unit(dim Dim) Unit { return d.System.Default(dim) }
+// Unit is the unit a dimension is shown in: the file's pick, else the system's default. A
+// temperature difference follows a picked temperature scale (dF for F, dK for C or K).
+func (d Display) Unit(dim Dim) Unit {
+	if int(dim) < numDims && d.Pick[dim] != (Unit{}) {
+		return d.Pick[dim]
+	}
+	if dim == TemperatureDiff {
+		if t := d.Pick[Temperature]; t != (Unit{}) {
+			if t.US() {
+				return bySymbol["dF"]
+			}
+			return bySymbol["dK"]
+		}
+	}
+	return d.System.Default(dim)
+}
 
 // Value converts an SI value of dimension dim to the number shown, in Unit(dim).
 func (d Display) Value(dim Dim, si float64) float64 { return d.Unit(dim).FromSI(si, d.atm()) }

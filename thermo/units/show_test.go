@@ -89,11 +89,51 @@ func TestShow(t *testing.T) {
 func TestBase(t *testing.T) {
 	want := map[Dim]string{Dimensionless: "", Pressure: "Pa", Temperature: "K", TemperatureDiff: "dK",
 		SpecificEnergy: "J/kg", SpecificEntropy: "J/(kg K)", SpecificVolume: "m3/kg", Density: "kg/m3",
-		MassFlow: "kg/s", Power: "W", Length: "m", Velocity: "m/s", EntropyRate: "W/K", ShaftPower: "W"}
+		MassFlow: "kg/s", Power: "W", Length: "m", Velocity: "m/s", EntropyRate: "W/K", ShaftPower: "W",
+		VolumeFlow: "m3/s", HeatRate: "kJ/kJ"}
 	for d := Dim(0); d < numDims; d++ {
 		u := Base(d)
 		if u.Symbol() != want[d] || !u.Measures(d) || u.ToSI(2.5, StandardAtmosphere) != 2.5 {
 			t.Errorf("Base(%v) = %q", d, u.Symbol())
 		}
+	}
+}
+
+// A unit picked for a dimension is shown instead of the system's default, a gauge pick reads
+// from the site atmosphere, a picked temperature scale carries its differences, and Keep drops
+// the picks of the other system.
+func TestPick(t *testing.T) {
+	var p Picks
+	for _, s := range []string{"t/h", "bar(g)", "MW", "F"} {
+		u := mustLookup(t, s)
+		if !p.Set(u.Dim(), u) {
+			t.Fatalf("Set(%s) refused", s)
+		}
+	}
+	if p.Set(Dimensionless, Unit{}) {
+		t.Error("the bare number was picked")
+	}
+	d := Display{System: SI, Atm: 84560, Pick: p}
+	tests := []struct{ got, want string }{
+		{d.Show(MassFlow, 10), "36.000 t/h"},
+		// 1 MPa absolute at a site atmosphere of 84.56 kPa: 9.1544 bar above it.
+		{d.Show(Pressure, 1e6), "9.1544 bar(g)"},
+		{d.Delta(Pressure, 2e5), "2.0000 bar"},
+		{d.Show(Power, 2.5e6), "2.5000 MW"},
+		{d.Show(Temperature, 373.15), "212.00 F"},
+		{d.Delta(Temperature, 5), "9.0000 dF"},
+		{d.Show(SpecificEnergy, 2.8e6), "2800.0 kJ/kg"},
+	}
+	for _, tt := range tests {
+		if tt.got != tt.want {
+			t.Errorf("got %q, want %q", tt.got, tt.want)
+		}
+	}
+	us := Display{System: US, Pick: p.Keep(US)}
+	if got := us.Show(MassFlow, 0.45359237); got != "3600.0 lbm/h" {
+		t.Errorf("t/h kept under US: %q", got)
+	}
+	if got := us.Show(Temperature, 373.15); got != "212.00 F" {
+		t.Errorf("F dropped under US: %q", got)
 	}
 }

@@ -44,6 +44,8 @@ var defaults = [2][numDims]string{
 		Velocity:        "m/s",
 		EntropyRate:     "kW/K",
 		ShaftPower:      "kW",
+		VolumeFlow:      "m3/h",
+		HeatRate:        "kJ/kWh",
 	},
 	US: {
 		Dimensionless:   "",
@@ -60,6 +62,8 @@ var defaults = [2][numDims]string{
 		Velocity:        "ft/s",
 		EntropyRate:     "Btu/(h R)",
 		ShaftPower:      "hp", // work in horsepower, heat in Btu/h: US trade usage
+		VolumeFlow:      "gpm",
+		HeatRate:        "Btu/kWh",
 	},
 }
 

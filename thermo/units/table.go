@@ -50,6 +50,13 @@ const (
 
 	// The kelvin and the rankine share the zero; one rankine is 5/9 kelvin.
 	kPerR = 5.0 / 9.0
+
+	// US liquid gallon: 231 cubic inches exactly (NIST SP 811 (2008) Appendix B.8 lists
+	// 3.785 412 E-03 m3; B.9 lists the gallon (U.S.) per minute as 6.309 020 E-05 m3/s).
+	m3PerGal = 231 * mPerInch * mPerInch * mPerInch
+
+	// Kilowatt hour: 3.6 MJ exactly (NIST SP 811 (2008) Appendix B.8).
+	jPerKWh = 3.6e6
 )
 
 // StandardAtmosphere is the default site atmosphere for gauge pressures, in Pa.
@@ -194,6 +201,21 @@ var defs = []def{
 	{sym: "MW/K", dim: EntropyRate, scale: 1e6, strict: true},
 	{sym: "Btu/(h R)", us: true, dim: EntropyRate, scale: jPerBtu / 3600 / kPerR, alt: []string{
 		"Btu/h/R", "Btu/(h·R)", "Btu/(h*R)", "Btu/h-R", "Btu/hR", "Btu/(hr R)", "Btu/hr/R", "Btu/hr-R"}},
+
+	// Volumetric flow (of a liquid, at its own state). gpm is the US gallon per minute.
+	{sym: "m3/s", dim: VolumeFlow, scale: 1, alt: []string{"m³/s"}},
+	{sym: "m3/h", dim: VolumeFlow, scale: 1.0 / 3600, alt: []string{"m³/h", "m3/hr", "m³/hr"}},
+	{sym: "L/s", dim: VolumeFlow, scale: 1e-3, alt: []string{"l/s"}},
+	{sym: "L/min", dim: VolumeFlow, scale: 1e-3 / 60, alt: []string{"l/min", "lpm"}},
+	{sym: "gpm", us: true, dim: VolumeFlow, scale: m3PerGal / 60, alt: []string{"gal/min", "USgpm"}},
+	{sym: "ft3/min", us: true, dim: VolumeFlow, scale: mPerFt * mPerFt * mPerFt / 60, alt: []string{"ft³/min", "cfm"}},
+	{sym: "ft3/s", us: true, dim: VolumeFlow, scale: mPerFt * mPerFt * mPerFt, alt: []string{"ft³/s", "cfs"}},
+
+	// Heat rate: heat in per unit of net work, a ratio (kJ/kJ) shown per kilowatt hour of work.
+	{sym: "kJ/kJ", dim: HeatRate, scale: 1, alt: []string{"J/J"}},
+	{sym: "kJ/kWh", dim: HeatRate, scale: 1e3 / jPerKWh, alt: []string{"kJ/kW-h", "kJ/kW·h"}},
+	{sym: "kcal/kWh", dim: HeatRate, scale: jPerKcal / jPerKWh, alt: []string{"kcal/kW-h"}},
+	{sym: "Btu/kWh", us: true, dim: HeatRate, scale: jPerBtu / jPerKWh, alt: []string{"Btu/kW-h", "Btu/kW·h"}},
 
 	// Speed (of sound).
 	{sym: "m/s", dim: Velocity, scale: 1},

@@ -27,6 +27,10 @@ const (
 	// ShaftPower is power crossing as work (a turbine's output, a pump's input): measured in the
 	// units of Power, but shown in kW or hp where a heat duty shows in kW or Btu/h.
 	ShaftPower
+	VolumeFlow // volumetric flow, m3/s
+	// HeatRate is heat in per unit of net work out (a plant's heat rate): a ratio, J/J, shown as
+	// kJ/kWh or Btu/kWh.
+	HeatRate
 
 	numDims = iota
 )
@@ -46,6 +50,8 @@ var dimNames = [numDims]string{
 	Velocity:        "speed",
 	EntropyRate:     "rate of entropy generation",
 	ShaftPower:      "shaft power",
+	VolumeFlow:      "volumetric flow",
+	HeatRate:        "heat rate",
 }
 
 // Dims lists every dimension, in the order of the constants.

@@ -92,6 +92,18 @@ func TestFactors(t *testing.T) {
 		{"kcal/h", 1.163, 1e-15, sp811 + ", calorie_IT = 4.1868 J (exact), per 3600 s"},
 		{"Mlb/h", 1.259979e-1, sp7, sp811 + ", pound per hour x 1000 (M = thousand: common practice, no source)"},
 		{"MMlb/h", 1.259979e2, sp7, sp811 + ", pound per hour x 1e6 (MM = million: common practice, no source)"},
+		{"m3/s", 1, 0, "SI base"},
+		{"m3/h", 1 / 3600.0, 1e-15, "definition of the hour"},
+		{"L/s", 1e-3, 0, sp811 + ", liter = 1.0 E-03 m3 (exact)"},
+		{"L/min", 1e-3 / 60, 1e-15, sp811 + ", liter = 1.0 E-03 m3 (exact), per 60 s"},
+		{"gpm", 6.309020e-5, sp7, sp811 + ", gallon (U.S.) per minute (gpm)"},
+		{"gal/min", 3.785411784e-3 / 60, 1e-15, "U.S. gallon = 231 in3 exactly; " + sp811 + " 3.785 412 E-03 m3"},
+		{"cfm", 4.719474e-4, sp7, sp811 + ", cubic foot per minute"},
+		{"ft3/s", 2.831685e-2, sp7, sp811 + ", cubic foot per second"},
+		{"kJ/kWh", 1 / 3600.0, 1e-15, sp811 + ", kilowatt hour = 3.6 E+06 J (exact)"},
+		{"Btu/kWh", 2.930711e-4, sp7, sp811 + ", Btu_IT = 1.055 056 E+03 J over kilowatt hour = 3.6 E+06 J"},
+		{"kcal/kWh", 4186.8 / 3.6e6, 1e-15, sp811 + ", calorie_IT = 4.1868 J and kilowatt hour = 3.6 E+06 J (both exact)"},
+		{"kJ/kJ", 1, 0, "a ratio"},
 	}
 	for _, tt := range tests {
 		u := mustLookup(t, tt.unit)
@@ -403,9 +415,9 @@ func TestSystem(t *testing.T) {
 		}
 	}
 	want := map[System][numDims]string{
-		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s", "kW/K", "kW"},
+		SI: {"", "kPa", "C", "dK", "kJ/kg", "kJ/(kg K)", "m3/kg", "kg/m3", "kg/s", "kW", "m", "m/s", "kW/K", "kW", "m3/h", "kJ/kWh"},
 		// Heat in Btu/h, work in hp: US trade usage (common practice, no source).
-		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s", "Btu/(h R)", "hp"},
+		US: {"", "psia", "F", "dR", "Btu/lbm", "Btu/(lbm R)", "ft3/lbm", "lbm/ft3", "lbm/h", "Btu/h", "ft", "ft/s", "Btu/(h R)", "hp", "gpm", "Btu/kWh"},
 	}
 	for sys, syms := range want {
 		for d := Dim(0); d < numDims; d++ {
