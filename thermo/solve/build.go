@@ -35,6 +35,8 @@ type builder struct {
 	// unknowns of a blocked stream, they are not reported again as under-specified.
 	rejected map[int]bool
 	unames   []string
+	ints     []int     // arena of Equation.Vars (see intsOf)
+	lins     []linTerm // arena of Equation.lin
 }
 
 // addEq appends an equation to the system. Givens and unit equations share one slice in the
@@ -43,6 +45,33 @@ func (b *builder) addEq(eq Equation) { b.sys.Eqs = append(b.sys.Eqs, eq) }
 
 func (b *builder) diag(sev model.Severity, code string, span model.Span, msg string, rel ...model.Related) {
 	b.diags = append(b.diags, model.Diagnostic{Span: span, Severity: sev, Code: code, Message: msg, Related: rel})
+}
+
+// intsOf copies vs into the builder's arena of small int slices: the unknowns of every equation
+// share a few large allocations instead of one each. The result is capped, so that no append
+// through it can reach its neighbour.
+func (b *builder) intsOf(vs ...int) []int {
+	if cap(b.ints)-len(b.ints) < len(vs) {
+		b.ints = make([]int, 0, max(4096, len(vs)))
+	}
+	n := len(b.ints)
+	b.ints = append(b.ints, vs...)
+	return b.ints[n:len(b.ints):len(b.ints)]
+}
+
+// linOf is intsOf for the terms of a linear equation.
+func (b *builder) linOf(ts ...linTerm) []linTerm {
+	if cap(b.lins)-len(b.lins) < len(ts) {
+		b.lins = make([]linTerm, 0, max(4096, len(ts)))
+	}
+	n := len(b.lins)
+	b.lins = append(b.lins, ts...)
+	return b.lins[n:len(b.lins):len(b.lins)]
+}
+
+// fixed is the equation "x[v] = val" (a given, or a default).
+func (b *builder) fixed(v int, val float64) Equation {
+	return Equation{Vars: b.intsOf(v), lin: b.linOf(linTerm{c: 1}), rc: val}
 }
 
 func (b *builder) addVar(v Variable) int {
@@ -114,15 +143,10 @@ func (b *builder) param(u int, name string, variable bool, def float64) term {
 		b.rejected[v] = true
 	}
 	if g != nil && finite(g.Value) {
-		val := g.Value
-		b.addEq(Equation{
-			Label: "given " + name + " of " + b.uname(u), Kind: EqGiven, Unit: u, Stream: -1, Param: name,
-			Given: g, Span: g.Span, Dim: dim, LHS: "solved", RHS: "given", Vars: []int{v},
-			eval:   func(x []float64) (float64, float64, error) { return x[v], val, nil },
-			grad:   func(_ []float64, g []float64) { g[0] = 1 },
-			direct: func([]float64, int) (float64, error) { return val, nil },
-			floor:  1e-9 * typ,
-		})
+		eq := b.fixed(v, g.Value)
+		eq.Label, eq.Kind, eq.Unit, eq.Stream, eq.Param = "given "+name+" of "+b.uname(u), EqGiven, u, -1, name
+		eq.Given, eq.Span, eq.Dim, eq.LHS, eq.RHS, eq.floor = g, g.Span, dim, "solved", "given", 1e-9*typ
+		b.addEq(eq)
 	}
 	return v2t(v)
 }
@@ -139,32 +163,34 @@ func (b *builder) drop(u int, name string) term {
 	if g := b.m.Units[u].Params[name]; g != nil {
 		return t
 	}
-	v := t.v
-	b.addEq(Equation{
-		Label: name + " of " + b.uname(u) + " taken as zero", Kind: EqDefault, Unit: u, Stream: -1, Param: name,
-		Span: b.m.Units[u].Span, Dim: units.Pressure, LHS: "solved", RHS: "default", Vars: []int{v},
-		eval:   func(x []float64) (float64, float64, error) { return x[v], 0, nil },
-		grad:   func(_ []float64, g []float64) { g[0] = 1 },
-		direct: func([]float64, int) (float64, error) { return 0, nil },
-		floor:  1,
-	})
+	eq := b.fixed(t.v, 0)
+	eq.Label, eq.Kind, eq.Unit, eq.Stream, eq.Param = name+" of "+b.uname(u)+" taken as zero", EqDefault, u, -1, name
+	eq.Span, eq.Dim, eq.LHS, eq.RHS, eq.floor = b.m.Units[u].Span, units.Pressure, "solved", "default", 1
+	b.addEq(eq)
 	return t
 }
 
 // ports returns the streams of a role, in the order the file lists them.
 func (b *builder) ports(u int, role string) []int {
-	var out []int
+	var buf [8]int
+	out := buf[:0]
 	for _, p := range b.m.Units[u].Ports {
 		if p.Role == role {
 			out = append(out, p.Stream)
 		}
 	}
-	return out
+	if len(out) == 0 {
+		return nil
+	}
+	return b.intsOf(out...)
 }
 
+// port returns the first stream of a role, or -1.
 func (b *builder) port(u int, role string) int {
-	if s := b.ports(u, role); len(s) > 0 {
-		return s[0]
+	for _, p := range b.m.Units[u].Ports {
+		if p.Role == role {
+			return p.Stream
+		}
 	}
 	return -1
 }
@@ -181,37 +207,19 @@ func (b *builder) unitEq(u int, eq Equation) {
 
 // massBalance: sum of inlet flows = sum of outlet flows.
 func (b *builder) massBalance(u int, ins, outs []int) {
-	var vars []int
+	var vs [8]int
+	var ls [8]linTerm
+	v, l := vs[:0], ls[:0]
 	for _, s := range outs {
-		vars = append(vars, b.mv(s))
+		v, l = append(v, b.mv(s)), append(l, linTerm{c: 1, rhs: true})
 	}
 	for _, s := range ins {
-		vars = append(vars, b.mv(s))
+		v, l = append(v, b.mv(s)), append(l, linTerm{c: 1})
 	}
-	nOut := len(outs)
+	vars, lin := b.intsOf(v...), b.linOf(l...)
 	b.unitEq(u, Equation{
 		Label: "mass balance of " + b.uname(u), Kind: EqMass, Dim: units.MassFlow, LHS: "in", RHS: "out", Vars: vars,
-		eval: func(x []float64) (float64, float64, error) {
-			var in, out float64
-			for i, v := range vars {
-				if i < nOut {
-					out += x[v]
-				} else {
-					in += x[v]
-				}
-			}
-			return in, out, nil
-		},
-		grad: func(_ []float64, g []float64) {
-			for i := range vars {
-				if i < nOut {
-					g[i] = -1
-				} else {
-					g[i] = 1
-				}
-			}
-		},
-		floor: 1e-9,
+		lin: lin, floor: 1e-9,
 	})
 }
 
@@ -219,13 +227,8 @@ func (b *builder) massBalance(u int, ins, outs []int) {
 // terms are duties, shaft powers and losses.
 func (b *builder) energyBalance(u int, label string, ins, outs []int, extraIn, extraOut []term) {
 	// Each term keeps the positions of its unknowns in vars, so that the gradient needs no map.
-	type flowTerm struct{ m, h, im, ih int }
-	type extraTerm struct {
-		t    term
-		i    int
-		sign float64
-	}
-	vars := make([]int, 0, 2*(len(ins)+len(outs))+len(extraIn)+len(extraOut))
+	var buf [16]int
+	vars := buf[:0]
 	use := func(v int) int {
 		for i, w := range vars {
 			if w == v {
@@ -235,21 +238,32 @@ func (b *builder) energyBalance(u int, label string, ins, outs []int, extraIn, e
 		vars = append(vars, v)
 		return len(vars) - 1
 	}
-	fin := make([]flowTerm, 0, len(ins))
-	fout := make([]flowTerm, 0, len(outs))
+	// One allocation holds the form and its terms.
+	n := len(ins) + len(outs)
+	en := &struct {
+		energyForm
+		flows [4]flowTerm
+		extra [2]extraTerm
+	}{}
+	f := &en.energyForm
+	flows := en.flows[:0]
+	if n > len(en.flows) {
+		flows = make([]flowTerm, 0, n)
+	}
 	for _, s := range outs {
-		fout = append(fout, flowTerm{m: b.mv(s), h: b.hv(s), ih: use(b.hv(s))})
+		flows = append(flows, flowTerm{m: b.mv(s), h: b.hv(s), ih: use(b.hv(s))})
 	}
 	for _, s := range ins {
-		fin = append(fin, flowTerm{m: b.mv(s), h: b.hv(s), ih: use(b.hv(s))})
+		flows = append(flows, flowTerm{m: b.mv(s), h: b.hv(s), ih: use(b.hv(s))})
 	}
-	for k := range fout {
-		fout[k].im = use(fout[k].m)
+	for k := range flows {
+		flows[k].im = use(flows[k].m)
 	}
-	for k := range fin {
-		fin[k].im = use(fin[k].m)
+	f.fout, f.fin = flows[:len(outs):len(outs)], flows[len(outs):]
+	extra := en.extra[:0]
+	if len(extraIn)+len(extraOut) > len(en.extra) {
+		extra = make([]extraTerm, 0, len(extraIn)+len(extraOut))
 	}
-	var extra []extraTerm
 	for _, t := range extraIn {
 		extra = append(extra, extraTerm{t: t, i: -1, sign: 1})
 	}
@@ -261,114 +275,127 @@ func (b *builder) energyBalance(u int, label string, ins, outs []int, extraIn, e
 			extra[k].i = use(extra[k].t.v)
 		}
 	}
+	f.extra = extra
 	if label == "" {
 		label = "energy balance of " + b.uname(u)
 	}
 	b.unitEq(u, Equation{
-		Label: label, Kind: EqEnergy, Dim: units.Power, LHS: "in", RHS: "out", Vars: vars,
-		eval: func(x []float64) (float64, float64, error) {
-			var in, out float64
-			for _, f := range fin {
-				in += x[f.m] * x[f.h]
-			}
-			for _, f := range fout {
-				out += x[f.m] * x[f.h]
-			}
-			for _, e := range extra {
-				if e.sign > 0 {
-					in += e.t.val(x)
-				} else {
-					out += e.t.val(x)
-				}
-			}
-			return in, out, nil
-		},
-		grad: func(x []float64, g []float64) {
-			clear(g)
-			for _, f := range fin {
-				g[f.im] += x[f.h]
-				g[f.ih] += x[f.m]
-			}
-			for _, f := range fout {
-				g[f.im] -= x[f.h]
-				g[f.ih] -= x[f.m]
-			}
-			for _, e := range extra {
-				if e.i >= 0 {
-					g[e.i] += e.sign
-				}
-			}
-		},
-		floor: 1e-3,
-		// The total enthalpy flow m h depends on where IF97 puts h = 0 (the triple-point liquid);
-		// the same balance error is a small share of 25 MW of steam and a large share of the
-		// 300 kW a heater adds. A closure is judged against what the datum cancels out of: the
-		// duties, powers and losses crossing the boundary, and each stream's enthalpy flow
-		// measured from the inlets' mass-weighted mean enthalpy (for a heater, the enthalpy rise
-		// m (h_out - h_in); for a mixer, the heat each inlet gives up or takes). Shifting every h
-		// by a constant leaves all of these unchanged.
-		// A one-in, one-out unit with nothing crossing its boundary (a valve) has no such scale:
-		// its enthalpy change is the mismatch itself, so any error would read 100 %. There the
-		// balance is judged against the inlet's enthalpy flow from the steam-table datum, the
-		// usual check of a throttling calculation.
-		energy: func(x []float64) float64 {
-			var m, mh float64
-			for _, f := range fin {
-				m += x[f.m]
-				mh += x[f.m] * x[f.h]
-			}
-			href := 0.0
-			if m != 0 {
-				href = mh / m
-			}
-			sc := 0.0
-			for _, f := range fin {
-				sc = max(sc, math.Abs(x[f.m]*(x[f.h]-href)))
-			}
-			for _, f := range fout {
-				sc = max(sc, math.Abs(x[f.m]*(x[f.h]-href)))
-			}
-			for _, e := range extra {
-				sc = max(sc, math.Abs(e.t.val(x)))
-			}
-			if len(extra) == 0 && len(fin) == 1 && len(fout) == 1 {
-				sc = max(sc, math.Abs(mh))
-			}
-			return sc
-		},
+		Label: label, Kind: EqEnergy, Dim: units.Power, LHS: "in", RHS: "out", Vars: b.intsOf(vars...),
+		en: f, floor: 1e-3,
 	})
+}
+
+// energyForm is an energy balance: enthalpy flows m h in and out, and the extra terms (duties,
+// powers, losses) on either side. It evaluates without a closure per balance.
+type energyForm struct {
+	fin, fout []flowTerm
+	extra     []extraTerm
+}
+
+// flowTerm is one stream's m h: its unknowns, and their positions in the equation's Vars.
+type flowTerm struct{ m, h, im, ih int }
+
+// extraTerm is a duty, power or loss: sign +1 on the inlet side, -1 on the outlet side; i is its
+// position in Vars when it is an unknown, else -1.
+type extraTerm struct {
+	t    term
+	i    int
+	sign float64
+}
+
+func (f *energyForm) value(x []float64) (in, out float64) {
+	for _, t := range f.fin {
+		in += x[t.m] * x[t.h]
+	}
+	for _, t := range f.fout {
+		out += x[t.m] * x[t.h]
+	}
+	for _, e := range f.extra {
+		if e.sign > 0 {
+			in += e.t.val(x)
+		} else {
+			out += e.t.val(x)
+		}
+	}
+	return in, out
+}
+
+func (f *energyForm) grad(x []float64, g []float64) {
+	clear(g)
+	for _, t := range f.fin {
+		g[t.im] += x[t.h]
+		g[t.ih] += x[t.m]
+	}
+	for _, t := range f.fout {
+		g[t.im] -= x[t.h]
+		g[t.ih] -= x[t.m]
+	}
+	for _, e := range f.extra {
+		if e.i >= 0 {
+			g[e.i] += e.sign
+		}
+	}
+}
+
+// scale is the largest term of the balance that does not depend on the enthalpy datum; closures
+// of energy balances are judged against it.
+//
+// The total enthalpy flow m h depends on where IF97 puts h = 0 (the triple-point liquid); the
+// same balance error is a small share of 25 MW of steam and a large share of the 300 kW a heater
+// adds. A closure is judged against what the datum cancels out of: the duties, powers and losses
+// crossing the boundary, and each stream's enthalpy flow measured from the inlets' mass-weighted
+// mean enthalpy (for a heater, the enthalpy rise m (h_out - h_in); for a mixer, the heat each
+// inlet gives up or takes). Shifting every h by a constant leaves all of these unchanged.
+// A one-in, one-out unit with nothing crossing its boundary (a valve) has no such scale: its
+// enthalpy change is the mismatch itself, so any error would read 100 %. There the balance is
+// judged against the inlet's enthalpy flow from the steam-table datum, the usual check of a
+// throttling calculation.
+func (f *energyForm) scale(x []float64) float64 {
+	var m, mh float64
+	for _, t := range f.fin {
+		m += x[t.m]
+		mh += x[t.m] * x[t.h]
+	}
+	href := 0.0
+	if m != 0 {
+		href = mh / m
+	}
+	sc := 0.0
+	for _, t := range f.fin {
+		sc = max(sc, math.Abs(x[t.m]*(x[t.h]-href)))
+	}
+	for _, t := range f.fout {
+		sc = max(sc, math.Abs(x[t.m]*(x[t.h]-href)))
+	}
+	for _, e := range f.extra {
+		sc = max(sc, math.Abs(e.t.val(x)))
+	}
+	if len(f.extra) == 0 && len(f.fin) == 1 && len(f.fout) == 1 {
+		sc = max(sc, math.Abs(mh))
+	}
+	return sc
 }
 
 // pressureDrop: p_out = p_in - dp.
 func (b *builder) pressureDrop(u int, in, out int, dp term, label string) {
-	vars := []int{b.pv(out), b.pv(in)}
-	if dp.v >= 0 {
-		vars = append(vars, dp.v)
-	}
 	if label == "" {
 		label = "pressure drop of " + b.uname(u)
 	}
-	pin, pout := b.pv(in), b.pv(out)
-	b.unitEq(u, Equation{
-		Label: label, Kind: EqPressure, Dim: units.Pressure, LHS: "outlet", RHS: "inlet less drop", Vars: vars,
-		eval: func(x []float64) (float64, float64, error) { return x[pout], x[pin] - dp.val(x), nil },
-		grad: func(_ []float64, g []float64) {
-			g[0], g[1] = 1, -1
-			if len(g) > 2 {
-				g[2] = 1
-			}
-		},
-		floor: 1,
-	})
+	eq := Equation{
+		Label: label, Kind: EqPressure, Dim: units.Pressure, LHS: "outlet", RHS: "inlet less drop",
+		Vars: b.intsOf(b.pv(out), b.pv(in)), lin: b.linOf(linTerm{c: 1}, linTerm{c: 1, rhs: true}), rc: -dp.c, floor: 1,
+	}
+	if dp.v >= 0 {
+		eq.Vars, eq.lin, eq.rc = b.intsOf(b.pv(out), b.pv(in), dp.v), b.linOf(linTerm{c: 1}, linTerm{c: 1, rhs: true}, linTerm{c: -1, rhs: true}), 0
+	}
+	b.unitEq(u, eq)
 }
 
 // equal: x[a] = x[b] (a shared pressure or enthalpy).
 func (b *builder) equal(u int, a, c int, kind EqKind, dim units.Dim, label string) {
 	b.unitEq(u, Equation{
-		Label: label, Kind: kind, Dim: dim, LHS: b.sys.Vars[a].Name, RHS: b.sys.Vars[c].Name, Vars: []int{a, c},
-		eval:  func(x []float64) (float64, float64, error) { return x[a], x[c], nil },
-		grad:  func(_ []float64, g []float64) { g[0], g[1] = 1, -1 },
-		floor: 1,
+		Label: label, Kind: kind, Dim: dim, LHS: b.sys.Vars[a].Name, RHS: b.sys.Vars[c].Name,
+		Vars: b.intsOf(a, c), lin: b.linOf(linTerm{c: 1}, linTerm{c: 1, rhs: true}), floor: 1,
 	})
 }
 

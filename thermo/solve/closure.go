@@ -31,14 +31,14 @@ func (s *solveRun) overSpecified() {
 		if !ready {
 			continue
 		}
-		lhs, rhs, err := eq.eval(s.x)
+		lhs, rhs, err := eq.value(s.x)
 		if err != nil || !finite(lhs) || !finite(rhs) {
 			continue
 		}
 		diff := lhs - rhs
 		mag := max(math.Abs(lhs), math.Abs(rhs))
-		if eq.energy != nil {
-			mag = max(eq.energy(s.x), math.Abs(diff))
+		if eq.en != nil {
+			mag = max(eq.en.scale(s.x), math.Abs(diff))
 		}
 		rel := 0.0
 		if mag > 0 {

@@ -60,9 +60,9 @@ func (n *newton) work(k int) (r, scale, jac, dx, x0 []float64) {
 // solveBlock finds the unknowns vars so that the equations eqs hold, the other unknowns fixed.
 func (n *newton) solveBlock(eqs, vars []int) error {
 	sys := n.sys
-	if len(eqs) == 1 && sys.Eqs[eqs[0]].direct != nil {
+	if len(eqs) == 1 && sys.Eqs[eqs[0]].hasDirect() {
 		n.evals++
-		v, err := sys.Eqs[eqs[0]].direct(n.x, vars[0])
+		v, err := sys.Eqs[eqs[0]].solveFor(n.x, vars[0])
 		if err == nil && finite(v) {
 			n.x[vars[0]] = v
 			return nil
@@ -138,7 +138,7 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 				g = append(g, 0)
 			}
 			sys.gradient(e, n.x, g)
-			n.evals += 1 + 2*len(g)*b2i(eq.grad == nil)
+			n.evals += 1 + 2*len(g)*b2i(eq.grad == nil && eq.lin == nil && eq.en == nil)
 			for a, v := range eq.Vars {
 				if j, ok := col(v); ok {
 					jac[i*k+j] += g[a] / scale[i]

@@ -251,19 +251,32 @@ func (s *solveRun) diag(sev model.Severity, code string, span model.Span, msg st
 }
 
 func (s *solveRun) neighbours() {
-	s.nbr = make([][]int, len(s.m.Streams))
-	for u, un := range s.m.Units {
-		if s.b.badUnit[u] {
-			continue
-		}
-		for _, p := range un.Ports {
-			for _, q := range un.Ports {
-				if p.Stream != q.Stream {
-					s.nbr[p.Stream] = append(s.nbr[p.Stream], q.Stream)
+	// Counted, then filled: sub-slices of one array, not a slice grown per stream.
+	count := make([]int, len(s.m.Streams)+1)
+	each := func(f func(p, q int)) {
+		for u, un := range s.m.Units {
+			if s.b.badUnit[u] {
+				continue
+			}
+			for _, p := range un.Ports {
+				for _, q := range un.Ports {
+					if p.Stream != q.Stream {
+						f(p.Stream, q.Stream)
+					}
 				}
 			}
 		}
 	}
+	each(func(p, _ int) { count[p+1]++ })
+	for i := range len(s.m.Streams) {
+		count[i+1] += count[i]
+	}
+	flat := make([]int, count[len(s.m.Streams)])
+	s.nbr = make([][]int, len(s.m.Streams))
+	for i := range s.nbr {
+		s.nbr[i] = flat[count[i]:count[i]:count[i+1]]
+	}
+	each(func(p, q int) { s.nbr[p] = append(s.nbr[p], q) })
 }
 
 // guess is the first Newton iterate of an unknown: the same property of a solved neighbour

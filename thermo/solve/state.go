@@ -170,20 +170,14 @@ func (b *builder) givenLabel(i int, p model.Prop) string {
 
 // linearGiven: m, p or h equals its given value.
 func (b *builder) linearGiven(i int, p model.Prop, g *model.Given) Equation {
-	v := b.sys.StreamVar(i, p)
-	val := g.Value
 	floor := 1.0
 	if p == model.Flow {
 		floor = 1e-9
 	}
-	return Equation{
-		Label: b.givenLabel(i, p), Kind: EqGiven, Unit: -1, Stream: i, Prop: p, Given: g, Span: g.Span,
-		Dim: p.Dim(), LHS: "solved", RHS: "given", Vars: []int{v},
-		eval:   func(x []float64) (float64, float64, error) { return x[v], val, nil },
-		grad:   func(_ []float64, gr []float64) { gr[0] = 1 },
-		direct: func([]float64, int) (float64, error) { return val, nil },
-		floor:  floor,
-	}
+	eq := b.fixed(b.sys.StreamVar(i, p), g.Value)
+	eq.Label, eq.Kind, eq.Unit, eq.Stream, eq.Prop, eq.Given, eq.Span = b.givenLabel(i, p), EqGiven, -1, i, p, g, g.Span
+	eq.Dim, eq.LHS, eq.RHS, eq.floor = p.Dim(), "solved", "given", floor
+	return eq
 }
 
 // propGiven: T, s or x of (p, h) equals its given value. With p known, IF97 gives h directly.

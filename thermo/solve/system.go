@@ -53,6 +53,16 @@ type Equation struct {
 	RHS    string
 	Vars   []int // unknowns the equation touches, in the order the matching prefers them
 
+	// lin, when set, is the equation in linear form, in place of eval, grad and direct: each
+	// side sums lin[i].c x[Vars[i]] over its terms, plus lc or rc. Givens of m, p and h, mass
+	// balances, pressure drops and equalities take this form: most of a flowsheet's equations,
+	// built without a closure each.
+	lin    []linTerm
+	lc, rc float64
+	// en, set on energy balances, is the balance in closed form, in place of eval and grad;
+	// closures of energy balances are judged against its scale (see energyForm.scale).
+	en *energyForm
+
 	eval   func(x []float64) (lhs, rhs float64, err error)
 	grad   func(x []float64, g []float64) // d(lhs-rhs)/d(Vars[i]); nil: finite differences
 	direct func(x []float64, v int) (float64, error)
@@ -61,9 +71,52 @@ type Equation struct {
 	// sides differ by at most the relative tolerance in x itself (relTol of the latent heat in
 	// h), not relative to a quality that may be zero.
 	quality bool
-	// energy, set on energy balances, is the largest term of the balance that does not depend on
-	// the enthalpy datum (see energyBalance); closures of energy balances are judged against it.
-	energy func(x []float64) float64
+}
+
+// linTerm is one term of a linear equation: coefficient c on the left side, or on the right.
+type linTerm struct {
+	c   float64
+	rhs bool
+}
+
+// value evaluates both sides of the equation at x.
+func (eq *Equation) value(x []float64) (lhs, rhs float64, err error) {
+	if eq.en != nil {
+		lhs, rhs = eq.en.value(x)
+		return lhs, rhs, nil
+	}
+	if eq.lin == nil {
+		return eq.eval(x)
+	}
+	lhs, rhs = eq.lc, eq.rc
+	for i, t := range eq.lin {
+		if t.rhs {
+			rhs += t.c * x[eq.Vars[i]]
+		} else {
+			lhs += t.c * x[eq.Vars[i]]
+		}
+	}
+	return lhs, rhs, nil
+}
+
+// hasDirect reports whether the equation solves directly for one unknown (see solveFor).
+func (eq *Equation) hasDirect() bool {
+	return eq.direct != nil || eq.lin != nil && len(eq.lin) == 1
+}
+
+// solveFor returns the value of unknown v that satisfies the equation, the others held.
+func (eq *Equation) solveFor(x []float64, v int) (float64, error) {
+	if eq.lin == nil {
+		return eq.direct(x, v)
+	}
+	t := eq.lin[0]
+	if len(eq.lin) != 1 || eq.Vars[0] != v || t.c == 0 {
+		return math.NaN(), errNoDirect
+	}
+	if t.rhs {
+		return (eq.lc - eq.rc) / t.c, nil
+	}
+	return (eq.rc - eq.lc) / t.c, nil
 }
 
 // System is the whole set of unknowns and equations built from a model. It is kept explicit so
@@ -171,7 +224,7 @@ func (s *System) UnitVar(u int, param string) int {
 // Residual evaluates equation e at x: lhs - rhs in SI, and the scale it is judged against.
 func (s *System) Residual(e int, x []float64) (r, scale float64, err error) {
 	eq := &s.Eqs[e]
-	l, rr, err := eq.eval(x)
+	l, rr, err := eq.value(x)
 	if err != nil {
 		return math.NaN(), math.NaN(), err
 	}
@@ -222,6 +275,19 @@ func (s *System) Jacobian(x []float64) []Entry {
 // gradient fills g with the derivatives of equation e's raw residual with respect to its Vars.
 func (s *System) gradient(e int, x []float64, g []float64) {
 	eq := &s.Eqs[e]
+	if eq.lin != nil {
+		for i, t := range eq.lin {
+			g[i] = t.c
+			if t.rhs {
+				g[i] = -t.c
+			}
+		}
+		return
+	}
+	if eq.en != nil {
+		eq.en.grad(x, g)
+		return
+	}
 	if eq.grad != nil {
 		eq.grad(x, g)
 		return
