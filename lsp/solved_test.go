@@ -20,6 +20,7 @@ import (
 	"hmb/lang"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
+	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
 )
 
@@ -296,7 +297,8 @@ func checkDiags(name string, src []byte) []model.Diagnostic {
 	lr := lang.Check(name, src)
 	diags := slices.Clone(lr.Diags)
 	if lr.Model != nil {
-		diags = append(diags, solve.Solve(context.Background(), lr.Model, solve.Options{}).Diags...)
+		res, _ := reconcile.Solve(context.Background(), lr.Model, solve.Options{})
+		diags = append(diags, res.Diags...)
 	}
 	slices.SortStableFunc(diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return diags

@@ -5,6 +5,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strings"
 	"testing"
 )
 
@@ -122,3 +123,35 @@ func TestMeteredExamples(t *testing.T) {
 type jsonBuffer struct{ b []byte }
 
 func (w *jsonBuffer) Write(p []byte) (int, error) { w.b = append(w.b, p...); return len(p), nil }
+
+// TestReportReconciliation: the report page of a metered plant carries the reconciliation (the
+// measurement table with the suspect meter flagged, the ± of every stream value, the unit
+// results with theirs); a plant without measurements has no such section.
+func TestReportReconciliation(t *testing.T) {
+	metered := filepath.Join(examplesDir, "metered_turbine.hmb")
+	code, out, stderr := runReportCmd("report", metered)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	page := string(out)
+	i, j := strings.Index(page, "<h2>Reconciliation</h2>"), strings.Index(page, "<h2>Diagrams</h2>")
+	if i < 0 || j < i {
+		t.Fatal("no reconciliation section before the diagrams")
+	}
+	sec := page[i:j]
+	for _, want := range []string{"Measurements", "Stream uncertainties", "Unit results", "efficiency", "95 % half-width"} {
+		if !strings.Contains(sec, want) {
+			t.Errorf("reconciliation section lacks %q", want)
+		}
+	}
+	// The boiler-steam flow row: measured and reconciled with their ±, flagged suspect.
+	row := sec[strings.Index(sec, "MS flow"):]
+	row = row[:strings.Index(row, "</tr>")]
+	if !strings.Contains(row, "18.100 ± 0.27") || !strings.Contains(row, "suspect") {
+		t.Errorf("MS flow row: %s", row)
+	}
+	_, out, _ = runReportCmd("report", filepath.Join(examplesDir, "steam_header.hmb"))
+	if strings.Contains(string(out), "<h2>Reconciliation</h2>") {
+		t.Error("a plant without measurements shows a reconciliation section")
+	}
+}

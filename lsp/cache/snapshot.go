@@ -18,6 +18,7 @@ import (
 	"hmb/lang/check"
 	"hmb/lang/source"
 	"hmb/thermo/model"
+	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
 )
 
@@ -29,9 +30,11 @@ var ErrSuperseded = errors.New("document changed")
 // is done.
 type SolveFunc func(ctx context.Context, m *model.Model) *solve.Result
 
-// Solve is the solver hmb check runs, with its default options.
+// Solve is the solver hmb check runs, with its default options: the balances, with the
+// reconciliation of the measurements (reconcile.Of reads it from the result).
 func Solve(ctx context.Context, m *model.Model) *solve.Result {
-	return solve.Solve(ctx, m, solve.Options{})
+	res, _ := reconcile.Solve(ctx, m, solve.Options{})
+	return res
 }
 
 // A Snapshot is one version of one document and everything derived from it. Its text never

@@ -16,6 +16,7 @@ import (
 	"hmb/lang/check"
 	"hmb/lsp/cache"
 	"hmb/thermo/model"
+	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
 	"hmb/thermo/units"
 )
@@ -38,6 +39,13 @@ func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover,
 		} else {
 			text = StreamHover(res, sol, o)
 		}
+	} else if g := measuredAt(res, off); g != nil && !onSpelling(snap.Tokens(), off) {
+		// A reading: measured and reconciled. Its unit spelling keeps the spelling's hover.
+		sol, err := snap.Solution(ctx)
+		if err != nil && ctx.Err() != nil {
+			return nil, err
+		}
+		span, text = g.Span, MeasurementHover(res, sol, off)
 	} else if t := tokenAt(snap.Tokens(), off); t >= 0 {
 		toks := snap.Tokens()
 		span = model.Span{Start: toks[t].Pos, End: toks[t].End}
@@ -193,10 +201,14 @@ func StreamHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 	sr := &sol.Streams[o.Index]
 	sub := model.Subject{Kind: model.StreamSubject, Index: o.Index}
 	disp := display(res)
+	rec := reconcile.Of(sol)
 	b.WriteString("\n\n| | value | from |\n|---|---:|---|\n")
 	for _, r := range model.StreamResults {
 		v, _, _ := sol.Value(res.Model, sub, r.Name)
 		val := show(disp, &r, v)
+		if half := rec.U(sub, r.Name); half > 0 && !math.IsNaN(v) {
+			val = showU(disp, &r, v, half)
+		}
 		switch {
 		case r.Name == "x" && sol.Lacks(res.Model, sub, r.Name):
 			val = "none (single phase)"
@@ -270,9 +282,14 @@ func UnitHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 	fmt.Fprintf(&b, "| mass | %s | %s |\n", show(disp, mass, u.MassIn), show(disp, mass, u.MassOut))
 	fmt.Fprintf(&b, "| energy | %s | %s |\n", show(disp, energy, u.EnergyIn), show(disp, energy, u.EnergyOut))
 	sub := model.Subject{Kind: model.UnitSubject, Index: o.Index}
+	rec := reconcile.Of(sol)
 	for _, r := range res.Model.Results(sub) {
 		if v, _, _ := sol.Value(res.Model, sub, r.Name); !math.IsNaN(v) {
-			fmt.Fprintf(&b, "\n%s %s", r.Name, show(disp, &r, v))
+			val := show(disp, &r, v)
+			if half := rec.U(sub, r.Name); half > 0 {
+				val = showU(disp, &r, v, half)
+			}
+			fmt.Fprintf(&b, "\n%s %s", r.Name, val)
 		}
 	}
 	// A closure is known only for a balance that was redundant: it checks the givens.
@@ -283,6 +300,12 @@ func UnitHover(res *lang.Result, sol *solve.Result, o *check.Object) string {
 		fmt.Fprintf(&b, "\nenergy balance closes within %s%%", units.Format(100*u.EnergyClosure, 3))
 	}
 	return b.String()
+}
+
+// onSpelling reports whether byte offset off lies on a unit spelling.
+func onSpelling(toks []lang.Token, off int) bool {
+	t := tokenAt(toks, off)
+	return t >= 0 && toks[t].Kind == lang.SpellingToken
 }
 
 // mdCell keeps a table cell on one line and its pipes from splitting it.

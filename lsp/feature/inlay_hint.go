@@ -1,7 +1,8 @@
 package feature
 
 // This file implements inlay hints: the solved values beside each stream that the file did not
-// give, and the duty or power beside each unit.
+// give, and the duty or power beside each unit, each with its 95 % ± when the file has
+// measurements; the reconciled value beside each measurement (measurement.go).
 
 import (
 	"context"
@@ -12,6 +13,7 @@ import (
 	"hmb/lsp/cache"
 	"hmb/lsp/ext"
 	"hmb/thermo/model"
+	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
 )
 
@@ -57,6 +59,7 @@ func InlayHints(ctx context.Context, snap *cache.Snapshot, span model.Span) ([]e
 			PaddingLeft: true,
 		})
 	}
+	out = append(out, MeasurementHints(snap, res, sol, span)...)
 	return out, nil
 }
 
@@ -73,7 +76,7 @@ func StreamHint(res *lang.Result, sol *solve.Result, i int) string {
 		if math.IsNaN(v) || math.IsInf(v, 0) || source(&sol.Streams[i], name, v) == given {
 			continue
 		}
-		parts = append(parts, name+" "+display(res).Show(r.Dim, v))
+		parts = append(parts, name+" "+showU(display(res), r, v, reconcile.Of(sol).U(sub, name)))
 	}
 	return strings.Join(parts, ", ")
 }
@@ -84,7 +87,7 @@ func UnitHint(res *lang.Result, sol *solve.Result, i int) string {
 	var parts []string
 	for _, name := range unitHinted {
 		if v, r, ok := sol.Value(res.Model, sub, name); ok && !math.IsNaN(v) {
-			parts = append(parts, name+" "+display(res).Show(r.Dim, v))
+			parts = append(parts, name+" "+showU(display(res), r, v, reconcile.Of(sol).U(sub, name)))
 		}
 	}
 	return strings.Join(parts, ", ")

@@ -67,6 +67,16 @@ func Solve(ctx context.Context, m *model.Model, opt solve.Options) (*solve.Resul
 	return res, r.out
 }
 
+// Of returns the reconciliation a solve through Solve carried out, or nil (a result of
+// solve.Solve without it, or nil).
+func Of(res *solve.Result) *Result {
+	if res == nil {
+		return nil
+	}
+	r, _ := res.Adjusted.(*Result)
+	return r
+}
+
 // Find returns the measurement of a stream property or unit parameter by the names written in
 // the file ("B2", "flow"), or nil.
 func (r *Result) Find(name, property string) *Measurement {
@@ -132,6 +142,7 @@ type measEq struct {
 // adjust is solve.Options.Adjust: it reconciles the measurements among the solved equations.
 func (r *run) adjust(ctx context.Context, a *solve.Adjustment) {
 	r.done = true
+	a.Product = r.out
 	r.sys = a.System
 	r.x = a.X
 	r.disp = units.Display{System: a.Model.Display, Atm: a.Model.Atm}

@@ -150,6 +150,7 @@ func WritePage(w io.Writer, in *Input, opt PageOptions) error {
 		Caution: Caution,
 		Tables:  tableViews(in),
 	}
+	v.Reconciliation = reconciliationViews(in)
 	if in.Src != nil {
 		v.Hash = fmt.Sprintf("%x", sha256.Sum256(in.Src))
 		for n, line := range sourceLines(in.Src) {
@@ -310,36 +311,43 @@ func summary(in *Input) ([]summaryItem, []expectView) {
 func tableViews(in *Input) []tableView {
 	var out []tableView
 	for _, t := range Tables(in.Model, in.Result) {
-		v := tableView{Name: t.Name, Heading: strings.ToUpper(t.Name[:1]) + t.Name[1:], Note: Notes(t)}
-		for _, c := range t.Cols {
-			if c.Unit == "C" || c.Unit == "F" {
-				c.Unit = "°" + c.Unit
-			}
-			v.Cols = append(v.Cols, c)
-		}
-		for i, r := range t.Rows {
-			row := make([]cellView, len(r))
-			for j, c := range r {
-				cell := cellView{Text: c}
-				switch {
-				case c == Unsolved:
-					cell.Class = "unsolved"
-				case j < len(t.Cols) && t.Cols[j].Num:
-					cell.Class = "num"
-				}
-				if i < len(t.Given) && j < len(t.Given[i]) && t.Given[i][j] {
-					cell.Class += " given"
-				}
-				if i < len(t.Source) && j < len(t.Source[i]) && c != "" && c != Unsolved {
-					cell.Title = t.Source[i][j]
-				}
-				row[j] = cell
-			}
-			v.Rows = append(v.Rows, row)
-		}
+		v := viewOf(t)
+		v.Note = Notes(t)
 		out = append(out, v)
 	}
 	return out
+}
+
+// viewOf writes a table for the page.
+func viewOf(t Table) tableView {
+	v := tableView{Name: t.Name, Heading: strings.ToUpper(t.Name[:1]) + t.Name[1:]}
+	for _, c := range t.Cols {
+		if c.Unit == "C" || c.Unit == "F" {
+			c.Unit = "°" + c.Unit
+		}
+		v.Cols = append(v.Cols, c)
+	}
+	for i, r := range t.Rows {
+		row := make([]cellView, len(r))
+		for j, c := range r {
+			cell := cellView{Text: c}
+			switch {
+			case c == Unsolved:
+				cell.Class = "unsolved"
+			case j < len(t.Cols) && t.Cols[j].Num:
+				cell.Class = "num"
+			}
+			if i < len(t.Given) && j < len(t.Given[i]) && t.Given[i][j] {
+				cell.Class += " given"
+			}
+			if i < len(t.Source) && j < len(t.Source[i]) && c != "" && c != Unsolved {
+				cell.Title = t.Source[i][j]
+			}
+			row[j] = cell
+		}
+		v.Rows = append(v.Rows, row)
+	}
+	return v
 }
 
 func figCaption(k Kind) string {

@@ -104,3 +104,56 @@ func UncertaintyTable(m *model.Model, r *solve.Result, rec *reconcile.Result) Ta
 	}
 	return t
 }
+
+// StreamUncertaintyTable is one row per stream: the 95 % ± of each value of the stream table,
+// in the model's display units; blank where a value is not solved, 0 where it follows from exact
+// givens alone.
+func StreamUncertaintyTable(m *model.Model, rec *reconcile.Result) Table {
+	q := newQuantities(m)
+	t := Table{Name: "stream uncertainties", Cols: []Column{{Name: "stream"}}}
+	for _, name := range streamColumns {
+		spec := model.StreamResult(name)
+		u := q.unit(spec.Dim)
+		if spec.Dim == units.Temperature {
+			u = q.unit(units.TemperatureDiff)
+		}
+		t.Cols = append(t.Cols, Column{Name: "± " + name, Unit: u.Symbol(), Num: true})
+	}
+	for i, s := range m.Streams {
+		if s == nil {
+			continue
+		}
+		row := []string{s.Name}
+		for _, name := range streamColumns {
+			half := rec.Stream(i, name)
+			if math.IsNaN(half) {
+				row = append(row, "")
+				continue
+			}
+			dim := model.StreamResult(name).Dim
+			u := q.unit(dim)
+			if dim == units.Temperature {
+				u = q.unit(units.TemperatureDiff)
+			}
+			row = append(row, reconcile.FormatU(u, half))
+		}
+		t.Rows = append(t.Rows, row)
+	}
+	return t
+}
+
+// reconciliationViews are the report page's measurement tables, when the file has measurements:
+// the measurements, the ± of every stream value, and the unit results with theirs.
+func reconciliationViews(in *Input) []tableView {
+	rec := reconcile.Of(in.Result)
+	if rec == nil || len(rec.Measurements) == 0 || !in.solved() {
+		return nil
+	}
+	meas := viewOf(ReconciliationTable(in.Model, rec))
+	meas.Note = ReconciliationNotes
+	out := []tableView{meas, viewOf(StreamUncertaintyTable(in.Model, rec))}
+	if t := UncertaintyTable(in.Model, in.Result, rec); len(t.Rows) > 0 {
+		out = append(out, viewOf(t))
+	}
+	return out
+}

@@ -29,6 +29,9 @@ type Adjustment struct {
 	Judged []bool
 	// Diags are Adjust's findings, reported with the solver's.
 	Diags []model.Diagnostic
+	// Product is what Adjust found, kept as Result.Adjusted for the stages after the solve (the
+	// reconciliation of measurements: thermo/reconcile.Of reads it back).
+	Product any
 }
 
 // adjust runs Options.Adjust, if any.
@@ -41,6 +44,7 @@ func (s *solveRun) adjust() {
 	s.opt.Adjust(s.ctx, a)
 	s.judged = a.Judged
 	s.diags = append(s.diags, a.Diags...)
+	s.res.Adjusted = a.Product
 }
 
 // isJudged reports whether Options.Adjust gave the verdict on redundant equation e.

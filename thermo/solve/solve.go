@@ -109,7 +109,9 @@ type Result struct {
 	System *System
 	X      []float64
 	Work   Work
-	run    *solveRun // for UnitAt
+	// Adjusted is what Options.Adjust found (Adjustment.Product), nil without one.
+	Adjusted any
+	run      *solveRun // for Evaluator
 	// Totals are the whole file's powers and duties (totals.go); nil until solved.
 	Totals *Totals
 	// Expects holds the verdict on each of Model.Expects, in the same order (expect.go).
