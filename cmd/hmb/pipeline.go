@@ -1,10 +1,12 @@
 package main
 
 import (
+	"bytes"
 	"context"
 	"math"
 	"slices"
 	"strings"
+	"unicode/utf8"
 
 	"hmb/lang"
 	"hmb/lang/format"
@@ -162,6 +164,8 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 		return fr
 	}
 	m := c.model
+	fr.streams = make([]jsonStream, 0, len(m.Streams))
+	fr.units = make([]jsonUnit, 0, len(m.Units))
 	for i, s := range m.Streams {
 		r := c.res.Streams[i]
 		val := func(name string) jsonNum {
@@ -347,27 +351,44 @@ func alignRows(rows [][]string) string {
 	width := make([]int, len(rows[0]))
 	for _, row := range rows {
 		for j, c := range row {
-			width[j] = max(width[j], len([]rune(c)))
+			width[j] = max(width[j], utf8.RuneCountInString(c))
 		}
+	}
+	size := 3
+	for _, w := range width {
+		size += w + 2
 	}
 	var b strings.Builder
+	b.Grow(len(rows) * size)
+	var line []byte // one row, built here and written without its trailing blanks
 	for _, row := range rows {
-		var line strings.Builder
+		line = append(line[:0], "  "...)
 		for j, c := range row {
-			pad := strings.Repeat(" ", width[j]-len([]rune(c)))
-			switch {
-			case j == 0 || j == len(row)-1:
-				line.WriteString(c + pad)
-			default:
-				line.WriteString(pad + c)
+			pad := width[j] - utf8.RuneCountInString(c)
+			if j == 0 || j == len(row)-1 {
+				line = append(line, c...)
+				line = append(line, blanks(pad)...)
+			} else {
+				line = append(line, blanks(pad)...)
+				line = append(line, c...)
 			}
 			if j < len(row)-1 {
-				line.WriteString("  ")
+				line = append(line, "  "...)
 			}
 		}
-		b.WriteString("  " + strings.TrimRight(line.String(), " ") + "\n")
+		b.Write(bytes.TrimRight(line, " "))
+		b.WriteByte('\n')
 	}
 	return b.String()
+}
+
+// blanks returns n spaces.
+func blanks(n int) string {
+	const spaces = "                                                                "
+	if n > len(spaces) {
+		return strings.Repeat(" ", n)
+	}
+	return spaces[:max(n, 0)]
 }
 
 // formatSource is hmb fmt's transformation: exactly what the language server's formatting does.
