@@ -248,6 +248,9 @@ func (s *Server) cancelRequest(raw json.RawMessage) error {
 		}
 		id = jsonrpc2.NewNumberID(int32(v))
 	case string:
+		if v == "" {
+			v = emptyID // as the stream renamed the request (stream.go)
+		}
 		id = jsonrpc2.NewStringID(v)
 	default:
 		return fmt.Errorf("bad request id %v", p.ID)

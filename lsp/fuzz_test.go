@@ -149,7 +149,9 @@ func FuzzServer(f *testing.F) {
 			case op == 1 && open:
 				r := protocol.Range{Start: s.pos(), End: s.pos()}
 				nt := s.text()
-				texts[u] = applyUTF16(texts[u], r, nt)
+				if !(r.Start.Line > r.End.Line || r.Start.Line == r.End.Line && r.Start.Character > r.End.Character) {
+					texts[u] = applyUTF16(texts[u], r, nt) // a range that starts after its end is refused
+				}
 				versions[u]++
 				c.change(u, versions[u], map[string]any{"range": r, "text": nt})
 			case op == 2 && open:

@@ -26,7 +26,7 @@ func runFmt(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return &exitError{code: 2, msg: err.Error()}
 	}
-	differ, failed := 0, 0
+	differ, failed, unwritten := 0, 0, 0
 	for _, p := range paths {
 		src, err := os.ReadFile(p)
 		if err != nil {
@@ -49,12 +49,16 @@ func runFmt(args []string, stdout, stderr io.Writer) error {
 		case *write:
 			if !same {
 				if err := writeFileAtomic(p, out); err != nil {
-					return &exitError{code: 2, msg: err.Error()}
+					fmt.Fprintf(stderr, "hmb fmt: %v\n", err)
+					unwritten++
 				}
 			}
 		default:
 			stdout.Write(out)
 		}
+	}
+	if unwritten > 0 {
+		return &exitError{code: 2, msg: fmt.Sprintf("%d file(s) could not be rewritten; left unchanged", unwritten)}
 	}
 	if failed > 0 {
 		return &exitError{code: 1, msg: fmt.Sprintf("%d file(s) do not parse; left unchanged", failed)}

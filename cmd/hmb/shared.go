@@ -2,10 +2,6 @@ package main
 
 import (
 	"flag"
-	"fmt"
-	"io/fs"
-	"os"
-	"path/filepath"
 
 	"hmb/thermo/units"
 )
@@ -34,39 +30,4 @@ func (s systemFlags) display() (*units.System, error) {
 		return &v, nil
 	}
 	return nil, nil
-}
-
-// writeFileAtomic writes path through a temporary file in the same directory and a rename, so a
-// crash or a reader never sees half a file: the old file or the new one, never a mix. An existing
-// file keeps its mode; a new one gets 0644. Anything but a regular file is refused.
-func writeFileAtomic(path string, data []byte) error {
-	mode := fs.FileMode(0o644)
-	if info, err := os.Stat(path); err == nil {
-		if !info.Mode().IsRegular() {
-			return fmt.Errorf("%s is not a regular file", path)
-		}
-		mode = info.Mode().Perm()
-	}
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
-	if err != nil {
-		return err
-	}
-	name := tmp.Name()
-	defer os.Remove(name) // no-op after a successful rename
-	if _, err := tmp.Write(data); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Chmod(mode); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Sync(); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Close(); err != nil {
-		return err
-	}
-	return os.Rename(name, path)
 }

@@ -50,6 +50,9 @@ func (s *Session) Change(uri protocol.DocumentURI, version int32, changes []Chan
 	if old == nil {
 		return nil, fmt.Errorf("change to %s, which is not open", uri)
 	}
+	if version <= old.Version {
+		return nil, fmt.Errorf("change to %s refused: version %d is not newer than the document's %d", uri, version, old.Version)
+	}
 	src, err := ApplyChanges(old.Mapper, changes)
 	if err != nil {
 		return nil, err
@@ -91,10 +94,14 @@ func (s *Session) Shutdown() {
 }
 
 // ApplyChanges applies content changes in order to the text m indexes. Ranges past the end are
-// clamped (the protocol's rule for positions); a reversed range is taken in order.
+// clamped (the protocol's rule for positions). A range whose start comes after its end is an
+// error: the whole change is refused, rather than guessing which text the client meant.
 func ApplyChanges(m Mapper, changes []Change) ([]byte, error) {
 	src := m.File.Src
 	for i, c := range changes {
+		if r := c.Range; r != nil && (r.Start.Line > r.End.Line || r.Start.Line == r.End.Line && r.Start.Character > r.End.Character) {
+			return nil, fmt.Errorf("content change %d has its start (%d:%d) after its end (%d:%d)", i, r.Start.Line, r.Start.Character, r.End.Line, r.End.Character)
+		}
 		if c.Range == nil {
 			src = []byte(c.Text)
 		} else {
