@@ -45,6 +45,7 @@ done
 for png in "$here"/*.png; do
 	[ -e "$png" ] || continue
 	name=$(basename "$png" .png)
+	case $name in *.*) ;; *) continue ;; esac # not EXAMPLE.KIND: another picture (report-page.png)
 	name=${name%.*}
 	if [ ! -e "$root/testdata/examples/$name.hmb" ]; then
 		rm -f "$png"

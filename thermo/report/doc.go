@@ -1,6 +1,7 @@
 // Package report turns a solved calc file into what a reviewer reads: stream and unit tables
-// (Markdown, CSV, HTML), property diagrams drawn as SVG from the IAPWS-IF97 engine, and one
-// self-contained HTML page holding both with every finding.
+// (Markdown, CSV, HTML), property diagrams drawn as SVG from the IAPWS-IF97 engine, the heat and
+// material balance diagram (flowsheet.go), and one self-contained HTML page holding them all
+// with every finding, for a checker to sign.
 //
 // It sees only the neutral model, the solver's result and the diagnostics, never the notation:
 // the command line and the language server can hand it the same check.

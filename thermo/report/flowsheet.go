@@ -4,10 +4,12 @@ import (
 	"bytes"
 	"context"
 	"fmt"
+	"maps"
 	"math"
 	"slices"
 	"strconv"
 	"strings"
+	"sync"
 
 	"github.com/goccy/go-graphviz"
 
@@ -94,6 +96,8 @@ type fsUnit struct {
 	cx, cy float64
 }
 
+var graphvizMu sync.Mutex
+
 // flowsheetSVG draws the heat and material balance diagram of a file.
 func flowsheetSVG(in *Input, opt PlotOptions) (string, error) {
 	m := in.Model
@@ -104,6 +108,11 @@ func flowsheetSVG(in *Input, opt PlotOptions) (string, error) {
 	streams := fsStreams(in, opt.Values)
 	dot := fsDot(m, streams)
 
+	// go-graphviz keeps the WebAssembly module its parser and layout run in as package state:
+	// two layouts at once corrupt each other (a report written on two goroutines crashed), so
+	// they take turns.
+	graphvizMu.Lock()
+	defer graphvizMu.Unlock()
 	ctx := context.Background()
 	gv, err := graphviz.New(ctx)
 	if err != nil {
@@ -225,7 +234,9 @@ func flowsheetSVG(in *Input, opt PlotOptions) (string, error) {
 		lay.trace(bezierSamples(s.path))
 		lay.solid = append(lay.solid, rect{s.head[0] - 4, s.head[1] - 4, s.head[0] + 4, s.head[1] + 4})
 	}
-	for _, t := range terms {
+	// In name order, so that the same file always draws the same bytes.
+	for _, name := range slices.Sorted(maps.Keys(terms)) {
+		t := terms[name]
 		w.printf(`<circle class="terminal" cx="%s" cy="%s" r="3.5" fill="#fff" stroke="%s" stroke-width="1.4"/>`+"\n", num(t[0]), num(t[1]), fsStroke)
 		lay.solid = append(lay.solid, rect{t[0] - 4, t[1] - 4, t[0] + 4, t[1] + 4})
 	}

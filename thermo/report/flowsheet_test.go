@@ -1,6 +1,7 @@
 package report
 
 import (
+	"fmt"
 	"strings"
 	"testing"
 
@@ -105,6 +106,32 @@ func BenchmarkFlowsheet(b *testing.B) {
 	for b.Loop() {
 		if _, err := PlotString(in, PlotOptions{Kind: Flowsheet, Values: true}); err != nil {
 			b.Fatal(err)
+		}
+	}
+}
+
+// TestFlowsheetConcurrent draws flowsheets on several goroutines at once, as a language server
+// or a parallel test does: every drawing must come out whole (the layout engine's WebAssembly
+// module is shared package state in go-graphviz).
+func TestFlowsheetConcurrent(t *testing.T) {
+	in := testInput(t, units.SI)
+	want, err := PlotString(in, PlotOptions{Kind: Flowsheet})
+	if err != nil {
+		t.Fatal(err)
+	}
+	errs := make(chan error, 8)
+	for range 8 {
+		go func() {
+			got, err := PlotString(in, PlotOptions{Kind: Flowsheet})
+			if err == nil && got != want {
+				err = fmt.Errorf("a concurrent drawing differs from the lone one")
+			}
+			errs <- err
+		}()
+	}
+	for range 8 {
+		if err := <-errs; err != nil {
+			t.Error(err)
 		}
 	}
 }

@@ -7,9 +7,11 @@ import (
 	"html/template"
 	"io"
 	"math"
+	"strconv"
 	"strings"
 
 	"hmb/thermo/model"
+	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
 	"hmb/thermo/units"
 )
@@ -131,7 +133,7 @@ func (in *Input) where(sp model.Span) string {
 // diagrams are inline, the markup well-formed XML as well as HTML, laid out to print on A4 and
 // US Letter. It opens with a title block for the names of who prepared and who checked the calc,
 // the caution and a summary; then the heat and material balance diagram above the stream and
-// unit tables (given values marked apart from solved ones), a place kept for the plant totals,
+// unit tables (given values marked apart from solved ones) and the plant totals,
 // the property diagrams, the expectations with their verdicts, every finding, and the calc file
 // itself in an appendix.
 func WritePage(w io.Writer, in *Input, opt PageOptions) error {
@@ -151,6 +153,7 @@ func WritePage(w io.Writer, in *Input, opt PageOptions) error {
 		Tables:  tableViews(in),
 	}
 	v.Reconciliation = reconciliationViews(in)
+	v.NoTotals = TotalTable(in.Model, in.Result) == nil
 	if in.Src != nil {
 		v.Hash = fmt.Sprintf("%x", sha256.Sum256(in.Src))
 		for n, line := range sourceLines(in.Src) {
@@ -158,6 +161,9 @@ func WritePage(w io.Writer, in *Input, opt PageOptions) error {
 		}
 	}
 	v.Summary, v.Expectations = summary(in)
+	if len(v.Reconciliation) > 0 {
+		v.ReconSummary = reconSummary(reconcile.Of(in.Result))
+	}
 	v.Flowsheet = figure(in, PlotOptions{Kind: Flowsheet, ID: "fig-flowsheet"})
 	for _, k := range kinds {
 		v.Diagrams = append(v.Diagrams, figure(in, PlotOptions{Kind: k, ID: "fig-" + strings.ToLower(k.String())}))
@@ -214,6 +220,8 @@ type pageView struct {
 	Flowsheet                                 figureView
 	Tables                                    []tableView
 	Reconciliation                            []tableView
+	ReconSummary                              string
+	NoTotals                                  bool
 	Diagrams                                  []figureView
 	Expectations                              []expectView
 	Findings                                  []findingView
@@ -248,6 +256,23 @@ type findingView struct {
 type listingLine struct {
 	N    int
 	Text string
+}
+
+// reconSummary says in a sentence how the measurements fit the balances: the global test.
+func reconSummary(rec *reconcile.Result) string {
+	n := len(rec.Measurements)
+	switch {
+	case !rec.Reconciled:
+		return fmt.Sprintf("%d measurement(s) could not be reconciled (the findings say why); the values shown are the solver's.", n)
+	case rec.Redundancy == 0:
+		return fmt.Sprintf("%d measurement(s), none redundant: the balances cannot test them, and they are taken as read.", n)
+	}
+	verdict := "the measurements agree with the balances within their uncertainties"
+	if !rec.Passed {
+		verdict = "the measurements do not agree with the balances within their uncertainties: look for the suspect meters below"
+	}
+	return fmt.Sprintf("%d measurement(s), %d redundant. Global test: chi-square %s against %s at 95 %% with %d degree(s) of freedom; %s.",
+		n, rec.Redundancy, strconv.FormatFloat(rec.Chi2, 'f', 2, 64), strconv.FormatFloat(rec.Chi2Limit, 'f', 2, 64), rec.Redundancy, verdict)
 }
 
 // figure draws one diagram for the page, or says why it could not.
@@ -313,6 +338,9 @@ func tableViews(in *Input) []tableView {
 	for _, t := range Tables(in.Model, in.Result) {
 		v := viewOf(t)
 		v.Note = Notes(t)
+		if t.Name == "totals" {
+			v.Heading = "Plant totals"
+		}
 		out = append(out, v)
 	}
 	return out

@@ -144,10 +144,12 @@ func streamProvenance(s *model.Stream, r *solve.Result, i int, name string) (giv
 		return false, ""
 	}
 	src := r.Streams[i].Source[p]
-	switch src.Kind {
-	case solve.ProvGiven:
+	switch {
+	case src.Kind == solve.ProvGiven && s.Given[p] != nil && s.Given[p].Measured:
+		return true, "measured " + s.Name + " " + name + ", shown reconciled"
+	case src.Kind == solve.ProvGiven:
 		return true, src.Label
-	case solve.ProvNone:
+	case src.Kind == solve.ProvNone:
 		return s.Given[p] != nil, ""
 	}
 	return false, src.Label
@@ -248,8 +250,11 @@ func UnitTable(m *model.Model, r *solve.Result) Table {
 				row = append(row, "")
 				continue
 			}
-			if u.Params[c.name] != nil {
+			if g := u.Params[c.name]; g != nil {
 				given[3+j], source[3+j] = true, "given "+u.Name+" "+c.name
+				if g.Measured {
+					source[3+j] = "measured " + u.Name + " " + c.name + ", shown reconciled"
+				}
 			}
 			cell := q.cell(spec.Dim, v)
 			if spec.Delta {
