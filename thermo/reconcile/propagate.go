@@ -3,6 +3,8 @@ package reconcile
 import (
 	"math"
 
+	"gonum.org/v1/gonum/mat"
+
 	"hmb/thermo/model"
 	"hmb/thermo/solve"
 )
@@ -12,8 +14,8 @@ import (
 // u²(y) = ∇yᵀ Cov(x) ∇y, with Cov(x) = lx lxᵀ from the reconciliation (from the measurements
 // alone when nothing is redundant), expanded to 95 % by the factor 1.96 (GUM 6.2.1, Eq. 18;
 // Table G.1). Each result is read through the solver's one lookup by name (solve.Result.Value)
-// at values of the unknowns moved one at a time, so a derivative is a central difference of
-// exactly what the solver reports.
+// at moved values of the unknowns, so a derivative is a central difference of exactly what the
+// solver reports.
 func (r *run) propagate(res *solve.Result) {
 	m := r.m
 	out := r.out
@@ -50,43 +52,32 @@ func (r *run) propagate(res *solve.Result) {
 		}
 		return r.lx.RawRowView(r.cols[v])
 	}
-	acc := make([]float64, q)
-	combine := func(value float64, vars []int, grad []float64) float64 {
-		if !finite(value) {
-			return nan
-		}
-		clear(acc)
-		for i, v := range vars {
-			if !finite(grad[i]) {
-				return nan
-			}
-			for k, l := range rowOf(v) {
-				acc[k] += grad[i] * l
-			}
-		}
-		return Coverage * rowNorm(acc)
-	}
 	ev := res.Evaluator()
 	if ev == nil {
 		return
 	}
 	xp := append([]float64(nil), x...)
-	// derive fills u (one entry per result name) for a subject, from its results at values of
-	// the unknowns vars moved one at a time.
+	// derive fills u (one entry per result name) for a subject whose results depend on the
+	// unknowns vars. The covariance of those unknowns, L Lᵀ with L their rows of lx, is factored
+	// as D Dᵀ with D = Rᵀ from a QR of Lᵀ (or D = L when it has fewer columns than rows); each
+	// column of D moves the unknowns together as they vary together, and the result's variance is
+	// the sum of the squares of its derivatives along the columns. Moving correlated unknowns
+	// together keeps what the equations tie (a tee's outlets at its inlet pressure) tied, where a
+	// value computed from them has a corner (the lowest of equal pressures).
 	derive := func(sub model.Subject, names []model.ResultSpec, vars []int, u []float64) {
 		vals := make([]float64, len(names))
 		for k, spec := range names {
 			vals[k], _, _ = res.Value(m, sub, spec.Name)
 		}
-		grads := make([][]float64, len(names))
-		for k := range grads {
-			grads[k] = make([]float64, len(vars))
-		}
+		dirs := directions(vars, rowOf, q)
+		sum := make([]float64, len(names))
+		bad := make([]bool, len(names))
 		hi, lo := make([]float64, len(names)), make([]float64, len(names))
-		for j, v := range vars {
-			h := 1e-6 * max(math.Abs(x[v]), typical(sys.Vars[v].Dim))
+		for _, d := range dirs {
 			for side, sign := range []float64{1, -1} {
-				xp[v] = x[v] + sign*h
+				for j, v := range vars {
+					xp[v] = x[v] + sign*stepDir*d[j]
+				}
 				at := ev.At(sub, xp)
 				for k, spec := range names {
 					val := nan
@@ -100,22 +91,31 @@ func (r *run) propagate(res *solve.Result) {
 					}
 				}
 			}
-			xp[v] = x[v]
+			for _, v := range vars {
+				xp[v] = x[v]
+			}
 			for k := range names {
+				var g float64
 				switch {
 				case finite(hi[k]) && finite(lo[k]):
-					grads[k][j] = (hi[k] - lo[k]) / (2 * h)
+					g = (hi[k] - lo[k]) / (2 * stepDir)
 				case finite(hi[k]): // one side past a phase boundary: one-sided
-					grads[k][j] = (hi[k] - vals[k]) / h
+					g = (hi[k] - vals[k]) / stepDir
 				case finite(lo[k]):
-					grads[k][j] = (vals[k] - lo[k]) / h
+					g = (vals[k] - lo[k]) / stepDir
 				default:
-					grads[k][j] = nan
+					bad[k] = true
 				}
+				sum[k] += g * g
 			}
 		}
 		for k := range names {
-			u[k] = combine(vals[k], vars, grads[k])
+			switch {
+			case !finite(vals[k]) || bad[k]:
+				u[k] = nan
+			default:
+				u[k] = Coverage * math.Sqrt(sum[k])
+			}
 		}
 	}
 	for i := range m.Streams {
@@ -190,4 +190,46 @@ func (r *Result) Stream(i int, name string) float64 {
 // Unit is U of unit i's result name ("duty", "power", "sgen", ...).
 func (r *Result) Unit(i int, name string) float64 {
 	return r.U(model.Subject{Kind: model.UnitSubject, Index: i}, name)
+}
+
+// stepDir is the fraction of one standard deviation the unknowns move by for a derivative: small
+// enough that a result is linear over it, large enough that rounding does not show.
+const stepDir = 1e-3
+
+// directions factors the covariance of the unknowns vars (their rows of lx, q columns) as D Dᵀ
+// and returns the columns of D, each as long as vars; none when no unknown is uncertain.
+func directions(vars []int, rowOf func(int) []float64, q int) [][]float64 {
+	nv := len(vars)
+	if nv == 0 || q == 0 {
+		return nil
+	}
+	l := mat.NewDense(nv, q, nil)
+	for j, v := range vars {
+		if row := rowOf(v); row != nil {
+			l.SetRow(j, row)
+		}
+	}
+	var out [][]float64
+	if q <= nv {
+		for k := 0; k < q; k++ {
+			out = append(out, mat.Col(nil, k, l))
+		}
+		return out
+	}
+	var qr mat.QR
+	qr.Factorize(l.T())
+	var r mat.Dense
+	qr.RTo(&r) // q × nv, upper triangular in its first nv rows
+	for k := 0; k < nv; k++ {
+		d := make([]float64, nv)
+		nonzero := false
+		for j := 0; j < nv; j++ {
+			d[j] = r.At(k, j) // column k of Rᵀ is row k of R
+			nonzero = nonzero || d[j] != 0
+		}
+		if nonzero {
+			out = append(out, d)
+		}
+	}
+	return out
 }

@@ -336,6 +336,9 @@ func summary(in *Input) ([]summaryItem, []expectView) {
 func tableViews(in *Input) []tableView {
 	var out []tableView
 	for _, t := range Tables(in.Model, in.Result) {
+		if reconciliationTable(t) {
+			continue // a section of its own
+		}
 		v := viewOf(t)
 		v.Note = Notes(t)
 		if t.Name == "totals" {

@@ -12,12 +12,14 @@ import (
 
 // ReconciliationTable is one row per measurement: the value as measured and as reconciled, each
 // with its 95 % ±, the correction, the normalised correction (the measurement test, against 1.96)
-// and a flag, in the model's display units.
+// and a flag, in the model's display units (the unit column names each row's). Numbers stand in
+// cells of their own, so a spreadsheet keeps them numeric.
 func ReconciliationTable(m *model.Model, rec *reconcile.Result) Table {
 	q := newQuantities(m)
 	t := Table{Name: "measurements", Cols: []Column{
 		{Name: "meter"}, {Name: "unit"},
-		{Name: "measured", Num: true}, {Name: "reconciled", Num: true},
+		{Name: "measured", Num: true}, {Name: "± measured", Num: true},
+		{Name: "reconciled", Num: true}, {Name: "± reconciled", Num: true},
 		{Name: "correction", Num: true}, {Name: "test", Num: true}, {Name: "flag"},
 	}}
 	if rec == nil {
@@ -27,15 +29,20 @@ func ReconciliationTable(m *model.Model, rec *reconcile.Result) Table {
 		dim := ms.Dim
 		u := q.unit(dim)
 		delta := ms.Stream < 0 && ms.Unit >= 0 && ms.Unit < len(m.Units) && isDelta(m.Units[ms.Unit], ms.Property)
-		pm := func(v, half float64) string {
+		num := func(v float64) string {
 			if math.IsNaN(v) {
 				return Unsolved
 			}
-			num := q.cell(dim, v)
 			if delta {
-				num = units.Number(u, u.DeltaFromSI(v))
+				return units.Number(u, u.DeltaFromSI(v))
 			}
-			return num + " ± " + reconcile.FormatU(u, half)
+			return q.cell(dim, v)
+		}
+		half := func(v float64) string {
+			if math.IsNaN(v) {
+				return Unsolved
+			}
+			return reconcile.FormatU(u, v)
 		}
 		test, flag := Unsolved, ""
 		switch {
@@ -54,7 +61,7 @@ func ReconciliationTable(m *model.Model, rec *reconcile.Result) Table {
 			corr = units.Format(u.DeltaFromSI(c), 3)
 		}
 		t.Rows = append(t.Rows, []string{ms.Name + " " + ms.Property, units.DeltaSymbol(u),
-			pm(ms.Measured, ms.UMeasured), pm(ms.Reconciled, ms.UReconciled), corr, test, flag})
+			num(ms.Measured), half(ms.UMeasured), num(ms.Reconciled), half(ms.UReconciled), corr, test, flag})
 	}
 	return t
 }
@@ -77,7 +84,8 @@ const ReconciliationNotes = "± is the 95 % half-width (1.96 standard deviations
 // left out; the table is empty when the file has no measurements.
 func UncertaintyTable(m *model.Model, r *solve.Result, rec *reconcile.Result) Table {
 	q := newQuantities(m)
-	t := Table{Name: "unit results", Cols: []Column{{Name: "unit"}, {Name: "result"}, {Name: "value", Num: true}}}
+	t := Table{Name: "unit results", Cols: []Column{{Name: "unit"}, {Name: "result"},
+		{Name: "value", Num: true}, {Name: "±", Num: true}, {Name: "in"}}}
 	if r == nil || rec == nil {
 		return t
 	}
@@ -90,16 +98,12 @@ func UncertaintyTable(m *model.Model, r *solve.Result, rec *reconcile.Result) Ta
 			half := rec.U(sub, spec.Name)
 			v, _, _ := r.Value(m, sub, spec.Name)
 			un := q.unit(spec.Dim)
-			// Below a millionth of the display unit a ± is rounding of the derivative (the
-			// entropy a tee generates is zero up to rounding), not an uncertainty to show.
+			// Below a millionth of the display unit a ± is rounding of the derivative, not an
+			// uncertainty to show.
 			if !(un.DeltaFromSI(half) >= 1e-6) || math.IsNaN(v) {
 				continue
 			}
-			cell := q.cell(spec.Dim, v) + " ± " + reconcile.FormatU(un, half)
-			if sym := un.Symbol(); sym != "" {
-				cell += " " + sym
-			}
-			t.Rows = append(t.Rows, []string{u.Name, spec.Name, cell})
+			t.Rows = append(t.Rows, []string{u.Name, spec.Name, q.cell(spec.Dim, v), reconcile.FormatU(un, half), un.Symbol()})
 		}
 	}
 	return t
@@ -142,18 +146,41 @@ func StreamUncertaintyTable(m *model.Model, rec *reconcile.Result) Table {
 	return t
 }
 
-// reconciliationViews are the report page's measurement tables, when the file has measurements:
-// the measurements, the ± of every stream value, and the unit results with theirs.
-func reconciliationViews(in *Input) []tableView {
-	rec := reconcile.Of(in.Result)
-	if rec == nil || len(rec.Measurements) == 0 || !in.solved() {
+// ReconciliationTables are the tables of a file's measurements (Tables ends with them): the
+// measurement table, the ± of every stream value and the unit results with theirs; none when
+// the file has no measurements.
+func ReconciliationTables(m *model.Model, r *solve.Result) []Table {
+	rec := reconcile.Of(r)
+	if rec == nil || len(rec.Measurements) == 0 {
 		return nil
 	}
-	meas := viewOf(ReconciliationTable(in.Model, rec))
-	meas.Note = ReconciliationNotes
-	out := []tableView{meas, viewOf(StreamUncertaintyTable(in.Model, rec))}
-	if t := UncertaintyTable(in.Model, in.Result, rec); len(t.Rows) > 0 {
-		out = append(out, viewOf(t))
+	out := []Table{ReconciliationTable(m, rec), StreamUncertaintyTable(m, rec)}
+	if t := UncertaintyTable(m, r, rec); len(t.Rows) > 0 {
+		out = append(out, t)
+	}
+	return out
+}
+
+// reconciliationTable reports whether t is one of ReconciliationTables, which the report page
+// shows in a section of their own.
+func reconciliationTable(t Table) bool {
+	switch t.Name {
+	case "measurements", "stream uncertainties", "unit results":
+		return true
+	}
+	return false
+}
+
+// reconciliationViews are the report page's reconciliation section.
+func reconciliationViews(in *Input) []tableView {
+	if !in.solved() {
+		return nil
+	}
+	var out []tableView
+	for _, t := range ReconciliationTables(in.Model, in.Result) {
+		v := viewOf(t)
+		v.Note = Notes(t)
+		out = append(out, v)
 	}
 	return out
 }

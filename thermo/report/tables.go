@@ -360,7 +360,7 @@ func Tables(m *model.Model, r *solve.Result) []Table {
 	if t := TotalTable(m, r); t != nil {
 		out = append(out, *t)
 	}
-	return out
+	return append(out, ReconciliationTables(m, r)...)
 }
 
 // Notes is the footnote of a table, "" for none.
@@ -374,6 +374,8 @@ func Notes(t Table) string {
 		return ExchangerNotes
 	case "totals":
 		return TotalNotes
+	case "measurements":
+		return ReconciliationNotes
 	}
 	return ""
 }

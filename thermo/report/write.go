@@ -170,7 +170,7 @@ func WriteHTML(w io.Writer, in *Input) error {
 	return pageTemplates.ExecuteTemplate(w, "tablepage", struct {
 		Title, Basis string
 		Tables       []tableView
-	}{Title(in.Model, in.Path), basis(in.Model), tableViews(in)})
+	}{Title(in.Model, in.Path), basis(in.Model), append(tableViews(in), reconciliationViews(in)...)})
 }
 
 func esc(s string) string { return html.EscapeString(s) }
