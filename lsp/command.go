@@ -12,7 +12,7 @@ import (
 )
 
 // commands are the commands workspace/executeCommand runs, as initialize announces them.
-var commands = []string{feature.CommandStreamTable}
+var commands = []string{feature.CommandStreamTable, feature.CommandFlowsheet}
 
 // commandParams are executeCommand's parameters. The one argument of every command is the
 // document: its URI as a string, or an object with a uri field (a TextDocumentIdentifier).
@@ -45,12 +45,19 @@ func (s *Server) executeCommand(ctx context.Context, snap *cache.Snapshot, raw j
 		return nil, err
 	}
 	switch p.Command {
-	case feature.CommandStreamTable:
+	case feature.CommandStreamTable, feature.CommandFlowsheet:
 		if len(p.Arguments) != 1 || commandURI(raw) == "" {
 			return nil, jsonrpc2.Errorf(jsonrpc2.InvalidParams, "%s takes one argument, the document's URI", p.Command)
 		}
 		if snap == nil {
 			return nil, jsonrpc2.Errorf(jsonrpc2.InvalidParams, "%s: %s is not open", p.Command, commandURI(raw))
+		}
+		if p.Command == feature.CommandFlowsheet {
+			svg, err := feature.Flowsheet(ctx, snap)
+			if err != nil && ctx.Err() == nil {
+				return nil, jsonrpc2.Errorf(jsonrpc2.InvalidRequest, "%s: %v", p.Command, err)
+			}
+			return svg, err
 		}
 		return feature.Tables(ctx, snap)
 	}

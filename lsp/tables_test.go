@@ -122,7 +122,7 @@ func TestExecuteCommandErrors(t *testing.T) {
 	// The capability is announced in initialize's result; ask a fresh server.
 	c2 := startRaw(t, newTestOptions(0))
 	c2.mustCall(protocol.MethodInitialize, map[string]any{"capabilities": map[string]any{}}, &res)
-	if got := res.Capabilities.ExecuteCommandProvider.Commands; len(got) != 1 || got[0] != "hmb.streamTable" {
+	if got := res.Capabilities.ExecuteCommandProvider.Commands; strings.Join(got, " ") != "hmb.streamTable hmb.flowsheet" {
 		t.Errorf("executeCommandProvider commands %q", got)
 	}
 	c.open(uri, 1, plant)

@@ -23,23 +23,33 @@ const CommandStreamTable = "hmb.streamTable"
 // table prints, waiting (under ctx) for its solution. A superseded snapshot, which will have no
 // solution, tabulates as unsolved.
 func Tables(ctx context.Context, snap *cache.Snapshot) (string, error) {
-	res := snap.Check()
-	in := &report.Input{Path: docName(string(snap.URI)), Src: snap.Src(), Model: res.Model, Diags: slices.Clone(res.Diags)}
-	if res.Model != nil {
-		sol, err := snap.Solution(ctx)
-		if err != nil && ctx.Err() != nil {
-			return "", err
-		}
-		if sol != nil {
-			in.Result = sol
-			in.Diags = append(in.Diags, sol.Diags...)
-		}
+	in, err := reportInput(ctx, snap)
+	if err != nil {
+		return "", err
 	}
 	var b strings.Builder
 	if err := report.WriteMarkdown(&b, in); err != nil {
 		return "", err
 	}
 	return b.String(), nil
+}
+
+// reportInput is the snapshot as the report package takes it: the checked file and, once the
+// solver is done (under ctx), its solution; a superseded snapshot has none.
+func reportInput(ctx context.Context, snap *cache.Snapshot) (*report.Input, error) {
+	res := snap.Check()
+	in := &report.Input{Path: docName(string(snap.URI)), Src: snap.Src(), Model: res.Model, Diags: slices.Clone(res.Diags)}
+	if res.Model != nil {
+		sol, err := snap.Solution(ctx)
+		if err != nil && ctx.Err() != nil {
+			return nil, err
+		}
+		if sol != nil {
+			in.Result = sol
+			in.Diags = append(in.Diags, sol.Diags...)
+		}
+	}
+	return in, nil
 }
 
 // docName is the name a document goes by in a report: the path of a file URI, else the URI.

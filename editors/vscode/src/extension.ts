@@ -1,5 +1,6 @@
-// The hmb extension: starts `hmb lsp` for .hmb files and adds a command that shows the solved
-// stream table of the current file. Everything about the notation itself (diagnostics, hover,
+// The hmb extension: starts `hmb lsp` for .hmb files and adds commands that show the solved
+// stream table of the current file and its heat and material balance diagram (in a panel beside
+// it, redrawn on every save). Everything about the notation itself (diagnostics, hover,
 // completion, formatting) comes from the language server, so the editor and `hmb check` in CI
 // always agree.
 
@@ -18,6 +19,12 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   context.subscriptions.push(output);
   context.subscriptions.push(
     vscode.commands.registerCommand('hmb.showStreamTable', showStreamTable),
+    vscode.commands.registerCommand('hmb.showFlowsheet', showFlowsheet),
+    vscode.workspace.onDidSaveTextDocument((doc) => {
+      if (flowsheet && doc.uri.toString() === flowsheet.uri.toString()) {
+        void refreshFlowsheet();
+      }
+    }),
     vscode.commands.registerCommand('hmb.restartServer', async () => {
       await stopClient();
       await startClient();
@@ -140,4 +147,75 @@ async function showStreamTable(): Promise<void> {
       await fs.rm(tmpDir, { recursive: true, force: true });
     }
   }
+}
+
+// The heat and material balance diagram of one calc file, in a panel beside it.
+let flowsheet: { panel: vscode.WebviewPanel; uri: vscode.Uri } | undefined;
+
+// showFlowsheet opens (or points) the diagram panel at the current file. The language server
+// draws the diagram (command hmb.flowsheet), so it shows what the server solved: the text in
+// the editor, saved or not.
+async function showFlowsheet(): Promise<void> {
+  const editor = vscode.window.activeTextEditor;
+  if (!editor || editor.document.languageId !== 'hmb') {
+    void vscode.window.showWarningMessage('hmb: open a .hmb calc file first.');
+    return;
+  }
+  if (!client) {
+    void vscode.window.showErrorMessage('hmb: the language server is not running (see "hmb: Restart Language Server").');
+    return;
+  }
+  const uri = editor.document.uri;
+  if (flowsheet) {
+    flowsheet.uri = uri;
+    flowsheet.panel.reveal(vscode.ViewColumn.Beside, true);
+  } else {
+    const panel = vscode.window.createWebviewPanel(
+      'hmb.flowsheet',
+      'Heat and material balance diagram',
+      { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true },
+      { enableScripts: false },
+    );
+    flowsheet = { panel, uri };
+    panel.onDidDispose(() => {
+      flowsheet = undefined;
+    });
+  }
+  await refreshFlowsheet();
+}
+
+// refreshFlowsheet asks the language server for the diagram of the panel's file and shows it.
+async function refreshFlowsheet(): Promise<void> {
+  const f = flowsheet;
+  const c = client;
+  if (!f || !c) {
+    return;
+  }
+  const name = path.basename(f.uri.fsPath || f.uri.path || 'calc file');
+  try {
+    const svg = await c.sendRequest('workspace/executeCommand', {
+      command: 'hmb.flowsheet',
+      arguments: [f.uri.toString()],
+    });
+    f.panel.title = `HMB diagram: ${name}`;
+    f.panel.webview.html = flowsheetPage(String(svg));
+  } catch (err) {
+    const msg = err instanceof Error ? err.message : String(err);
+    f.panel.webview.html = flowsheetPage(`<p>hmb could not draw ${escapeHtml(name)}: ${escapeHtml(msg)}</p>`);
+  }
+}
+
+// flowsheetPage wraps the server's SVG in a page that runs no script and loads nothing.
+function flowsheetPage(body: string): string {
+  return `<!DOCTYPE html>
+<html lang="en"><head><meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
+<style>body{background:#fff;color:#111;margin:0;padding:8px}svg{display:block;width:100%;height:auto}</style>
+</head><body>
+${body}
+</body></html>`;
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch] ?? ch);
 }

@@ -13,7 +13,8 @@ const sample = path.join(__dirname, 'table.hmb');
 
 // fakeVscode records what the extension asks of the editor.
 function fakeVscode(settings) {
-  const rec = { commands: {}, opened: [], shown: [], executed: [], errors: [], warnings: [], clients: [] };
+  const rec = { commands: {}, opened: [], shown: [], executed: [], errors: [], warnings: [], clients: [],
+    panels: [], requests: [], onSave: [] };
   rec.vscode = {
     window: {
       activeTextEditor: undefined,
@@ -21,10 +22,22 @@ function fakeVscode(settings) {
       showErrorMessage: (m) => rec.errors.push(m),
       showWarningMessage: (m) => rec.warnings.push(m),
       showTextDocument: async (doc, opts) => rec.shown.push({ doc, opts }),
+      createWebviewPanel: (viewType, title, show, options) => {
+        const panel = { viewType, title, show, options, webview: { html: '' }, revealed: 0, disposers: [],
+          reveal() { this.revealed++; },
+          onDidDispose(fn) { this.disposers.push(fn); return { dispose() {} }; },
+          dispose() { this.disposers.forEach((fn) => fn()); } };
+        rec.panels.push(panel);
+        return panel;
+      },
     },
     workspace: {
       getConfiguration: () => ({ get: (key, dflt) => (key in settings ? settings[key] : dflt) }),
       onDidChangeConfiguration: () => ({ dispose() {} }),
+      onDidSaveTextDocument: (fn) => {
+        rec.onSave.push(fn);
+        return { dispose() {} };
+      },
       openTextDocument: async (init) => {
         const doc = { ...init, uri: { toString: () => 'untitled:' + rec.opened.length } };
         rec.opened.push(doc);
@@ -48,6 +61,13 @@ function fakeVscode(settings) {
       }
       async start() {}
       async stop() {}
+      // The language server's hmb.flowsheet, stood in for by the same drawing from a real hmb:
+      // hmb plot --kind flowsheet --values on the file the URI names.
+      async sendRequest(method, params) {
+        rec.requests.push({ method, params });
+        const file = new URL(params.arguments[0]).pathname;
+        return require('node:child_process').execFileSync(hmb, ['plot', '--kind', 'flowsheet', '--values', file]).toString();
+      }
     },
   };
   return rec;
@@ -74,7 +94,7 @@ function editorOn(file, text) {
   return {
     document: {
       languageId: 'hmb',
-      uri: { fsPath: file, scheme: 'file' },
+      uri: { fsPath: file, scheme: 'file', path: file, toString: () => 'file://' + file },
       isUntitled: false,
       isDirty: text !== undefined,
       getText: () => text ?? fs.readFileSync(file, 'utf8'),
@@ -144,4 +164,51 @@ test('a missing hmb is reported, not thrown', async () => {
   await rec.commands['hmb.showStreamTable']();
   assert.equal(rec.opened.length, 0);
   assert.match(rec.errors.join('\n'), /could not run "\/nonexistent\/hmb"/);
+});
+
+test('flowsheet: drawn by the language server in a panel beside the file, redrawn on save', async () => {
+  const rec = fakeVscode({ path: hmb });
+  await load(rec).activate({ subscriptions: [] });
+  assert.ok(rec.commands['hmb.showFlowsheet']);
+  const editor = editorOn(sample);
+  rec.vscode.window.activeTextEditor = editor;
+  await rec.commands['hmb.showFlowsheet']();
+  assert.deepEqual(rec.errors, []);
+  assert.equal(rec.panels.length, 1);
+  const panel = rec.panels[0];
+  assert.equal(panel.show.viewColumn, -2); // beside
+  assert.equal(panel.options.enableScripts, false);
+  assert.deepEqual(rec.requests[0], { method: 'workspace/executeCommand',
+    params: { command: 'hmb.flowsheet', arguments: ['file://' + sample] } });
+  // table.hmb: the valve V1 between S1 (1 kg/s, 10 bar = 1000 kPa, 250 C) and S2.
+  assert.match(panel.webview.html, /Content-Security-Policy/);
+  assert.match(panel.webview.html, /<svg [^>]*class="flowsheet"/);
+  assert.match(panel.webview.html, /data-unit="V1" data-kind="valve"/);
+  assert.match(panel.webview.html, />S1</);
+  assert.match(panel.webview.html, />1000\.0 kPa</);
+  assert.equal(panel.title, 'HMB diagram: table.hmb');
+
+  // Saving the file redraws; saving another file does not.
+  await Promise.all(rec.onSave.map((fn) => fn(editor.document)));
+  await new Promise((r) => setImmediate(r));
+  assert.equal(rec.requests.length, 2);
+  await Promise.all(rec.onSave.map((fn) => fn(editorOn('/elsewhere/other.hmb').document)));
+  await new Promise((r) => setImmediate(r));
+  assert.equal(rec.requests.length, 2);
+
+  // The command again points the same panel; closing it stops the redraws.
+  await rec.commands['hmb.showFlowsheet']();
+  assert.equal(rec.panels.length, 1);
+  assert.equal(panel.revealed, 1);
+  panel.dispose();
+  await Promise.all(rec.onSave.map((fn) => fn(editor.document)));
+  assert.equal(rec.requests.length, 3);
+});
+
+test('flowsheet outside a calc file only warns', async () => {
+  const rec = fakeVscode({ path: hmb });
+  await load(rec).activate({ subscriptions: [] });
+  await rec.commands['hmb.showFlowsheet']();
+  assert.equal(rec.panels.length, 0);
+  assert.match(rec.warnings.join('\n'), /open a \.hmb calc file/);
 });
