@@ -265,6 +265,9 @@ func TestKindsTable(t *testing.T) {
 			if p.Many {
 				r += " (one or more)"
 			}
+			if p.Optional {
+				r += " (optional)"
+			}
 			roles = append(roles, r)
 		}
 		for _, p := range k.Params {

@@ -42,8 +42,8 @@
   "Face for unit spellings after a number (psig, kJ/kg, °F).")
 
 (defconst hmb--kinds
-  '("boiler" "cooler" "desuperheater" "exchanger" "flash" "heater" "mixer" "pump" "splitter"
-    "turbine" "valve")
+  '("boiler" "cooler" "deaerator" "desuperheater" "exchanger" "flash" "heater" "mixer" "pump"
+    "splitter" "turbine" "valve")
   "Unit kinds: the equipment a block can declare.")
 
 (defconst hmb--settings
@@ -54,14 +54,15 @@
   "Top-level settings.")
 
 (defconst hmb--roles
-  '("in" "out" "steam" "water" "hot_in" "hot_out" "cold_in" "cold_out" "vapor" "liquid" "vapour")
+  '("in" "out" "blowdown" "vent" "steam" "water" "hot_in" "hot_out" "cold_in" "cold_out" "vapor"
+    "liquid" "vapour")
   "Port roles: the entries of a unit block that name streams.")
 
 (defconst hmb--properties
   '("flow" "p" "T" "h" "s" "x" "v" "rho" "vol_flow" "Tsat" "superheat" "subcooling" "power_out"
     "power_in" "net_power" "heat_in" "heat_out" "efficiency" "heat_rate" "duty" "dp" "fuel"
-    "T_boundary" "sgen" "heat_loss" "dp_hot" "dp_cold" "arrangement" "min_approach" "dT_min"
-    "lmtd" "UA" "power" "fluid")
+    "T_boundary" "blowdown_rate" "sgen" "heat_loss" "vent_rate" "dp_hot" "dp_cold" "arrangement"
+    "min_approach" "dT_min" "lmtd" "UA" "power" "fluid")
   "Stream properties, unit parameters and results.")
 
 (defconst hmb--name "\\(?:\\sw\\|\\s_\\)+")

@@ -90,7 +90,7 @@ func TestDiagnostics(t *testing.T) {
 			[]want{{code: "HMB206", at: "out B, |C", msg: "valve V takes one out stream, not 2"}}, false},
 		{"unknown kind with a suggestion", "stream A, B\nturbin T { in A; out B }",
 			[]want{{code: "HMB207", at: "turbin", fix: "turbine",
-				msg: "unknown unit kind turbin (kinds: boiler, cooler, desuperheater, exchanger, flash, heater, mixer, pump, splitter, turbine, valve); did you mean turbine?"}}, false},
+				msg: "unknown unit kind turbin (kinds: boiler, cooler, deaerator, desuperheater, exchanger, flash, heater, mixer, pump, splitter, turbine, valve); did you mean turbine?"}}, false},
 		// The misspelt port is not reported missing as well.
 		{"role written out as a word", "stream A, B\npump P { inlet A; out B }",
 			[]want{{code: "HMB208", at: "inlet", msg: "a pump has no role inlet (roles: in, out); did you mean in?", fix: "in"}}, false},

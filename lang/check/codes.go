@@ -37,6 +37,7 @@ const (
 	CodeNoReading      = "HMB317"
 	CodeRelativeDelta  = "HMB318"
 	CodeRelativeTemp   = "HMB319"
+	CodeNeedsRole      = "HMB330"
 
 	CodeDuplicateCase = "HMB340"
 	CodeSweepStep     = "HMB341"
@@ -80,6 +81,7 @@ var Codes = []model.CodeInfo{
 	{Code: CodeNoReading, Name: "pressure-without-reading", Severity: model.Error, Summary: "pressure in a unit that does not say absolute, gauge or vacuum (psi, inHg, inH2O, mmHg, kgf/cm2)", Help: "A bare psi or liquid column states a difference only. Write the reading: psia or psig; inHg(abs) or inHg(vac) (a vacuum below the site atmosphere); kgf/cm2(a) or kgf/cm2(g)."},
 	{Code: CodeRelativeDelta, Name: "gauge-unit-on-difference", Severity: model.Error, Summary: "gauge or vacuum unit on a pressure difference (dp 5 psig)", Help: "A pressure drop is a difference, not a reading against the atmosphere: write it in psi (psid), bar, kPa or inHg; to state the outlet pressure, give p on the outlet stream."},
 	{Code: CodeRelativeTemp, Name: "relative-temperature-tolerance", Severity: model.Error, Summary: "relative (%) tolerance on a temperature", Help: "A percentage of a temperature depends on where its scale puts zero (2 % of 250 C is 5 K, of 523 K is 10 K): give the tolerance in K, C, F or R."},
+	{Code: CodeNeedsRole, Name: "parameter-without-its-stream", Severity: model.Error, Summary: "a parameter that needs a stream the unit does not have (blowdown_rate without a blowdown)", Help: "The parameter sets the flow of one of the unit's streams (blowdown_rate is the blowdown's share of the feedwater): connect that stream to the unit, or remove the parameter."},
 	{Code: CodeDuplicateCase, Name: "duplicate-case", Severity: model.Error, Summary: "two cases, or two sweeps, of one name", Help: "Give each case and each sweep a name of its own: outputs and the command line (--case, --sweep) pick them by name."},
 	{Code: CodeSweepStep, Name: "bad-sweep-step", Severity: model.Error, Summary: "sweep step of zero or pointing away from its end, a count that is not a whole number of 2 or more, or a range from a value to itself", Help: "The step goes from the first value towards the second: above zero for a rising range, below zero for a falling one (the quick fix turns its sign). A count is a whole number of points, 2 or more."},
 	{Code: CodeSweepPoints, Name: "too-many-sweep-points", Severity: model.Error, Summary: "sweep of more than 10,000 points", Help: "Each point is a whole solve of the file: take a larger step or a smaller count."},

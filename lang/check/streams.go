@@ -2,6 +2,7 @@ package check
 
 import (
 	"fmt"
+	"math"
 	"slices"
 	"strings"
 
@@ -107,6 +108,12 @@ func (c *checker) streamEntry(st *model.Stream, e ast.Entry, seen *[len(StreamKe
 		return
 	}
 	prop := streamProps[ki]
+	if prop == model.Flow && g.Value.Unit != nil {
+		if u, err := c.lookupUnit(g.Value.Unit.Name); err == nil && u.Dim() == units.VolumeFlow {
+			c.volumeFlow(st, g, u)
+			return
+		}
+	}
 	v, u, ok := c.convert(g.Value, prop.Dim(), key.Name, false)
 	if !ok {
 		return
@@ -156,4 +163,27 @@ func (c *checker) plausible(prop model.Prop, q *ast.Quantity, v float64, u units
 		}
 	}
 	return true
+}
+
+// volumeFlow lowers a flow given in volume units (flow 120 gpm): the solver takes the mass flow
+// from it and the stream's density, which it requires to be a liquid's.
+func (c *checker) volumeFlow(st *model.Stream, g *ast.Given, u units.Unit) {
+	q := g.Value
+	if math.IsInf(q.Value, 0) {
+		c.errorf(CodeRange, q, "%s is too large a number", q.Raw)
+		return
+	}
+	v := u.ToSI(q.Value, c.m.Atm)
+	if v < 0 {
+		c.errorf(CodeImpossible, q, "flow %s %s is below zero: give streams in the direction they flow", q.Raw, spelling(q))
+		return
+	}
+	var tol float64
+	if g.Tol != nil {
+		var ok bool
+		if tol, ok = c.tolerance(g.Tol, q, u, units.VolumeFlow, "flow"); !ok {
+			return
+		}
+	}
+	st.VolFlow = c.newGiven(v, tol, spelling(q), span(g))
 }

@@ -167,7 +167,16 @@ func (c *checker) unit(s *ast.UnitDecl, o *Object) *model.Unit {
 			}
 		}
 	}
+	for _, ps := range paramSeen {
+		if spec := k.Param(ps.key); spec != nil && spec.Needs != "" && !slices.Contains(mentioned, spec.Needs) && !broken {
+			c.errorf(CodeNeedsRole, ps.node, "%s of %s %s needs a %s stream: add %s NAME to the %s", ps.key, k.Name, o.Name, spec.Needs, spec.Needs, k.Name)
+			complete = false
+		}
+	}
 	for i := range k.Ports {
+		if k.Ports[i].Optional {
+			continue
+		}
 		if !slices.Contains(mentioned, k.Ports[i].Role) && !broken {
 			c.errorf(CodeMissingPort, s.Name, "%s %s has no %s stream (%s)", k.Name, o.Name, k.Ports[i].Role, k.Ports[i].Doc)
 			complete = false

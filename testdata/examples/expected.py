@@ -356,7 +356,78 @@ def metered_turbine():
     return streams, units, rec
 
 
+def boiler_house():
+    """A boiler with blowdown and a deaerator with a vent, in a loop through the feed pump.
+
+    Every state follows from the givens without the flows (the deaerator's tank at its lowest
+    inlet's pressure, the steam's 0.2 barg; blowdown saturated at the drum pressure, the steam
+    outlet's; flash steam and drain saturated at 0.5 barg), so the flows are one linear system:
+    the boiler's mass balance with its 4 % blowdown, the header's split, and the deaerator's
+    mass and energy balances with its 0.5 % vent and 10 kW heat loss."""
+    atm = 101325.0
+    ms = pt(atm + 10 * BAR, C(220))
+    ls = ph(atm + 0.2 * BAR, ms.h)
+    ls0 = ph(ms.p, ms.h)
+    ps_ = ph(ms.p, ms.h, 12 * T_H)
+    cr = pt(atm + 1 * BAR, C(85), 8 * T_H)
+    mu = pt(atm + 3 * BAR, C(12))
+    dw = px(ls.p, 0)  # tank at the lowest inlet pressure, the heating steam's
+    vt = px(ls.p, 1)
+    bd = px(ms.p, 0)  # drum at the steam outlet pressure
+    fs = px(atm + 0.5 * BAR, 1)
+    bl = px(fs.p, 0)
+    fw = ph(atm + 12 * BAR, dw.h + (ps(atm + 12 * BAR, dw.s).h - dw.h) / 0.70)  # the pump, before its flow is known
+    loss = 10 * KW
+    rate, vent = 0.04, 0.005
+    q = (bd.h - bl.h) / (fs.h - bl.h)  # share of the blowdown that flashes
+    # Unknowns: a = LS flow, b = MU flow, f = feedwater flow. Then MS = (1 - rate) f,
+    # BD = rate f, FS = q BD, VT = vent f.
+    #   header:          (1 - rate) f = PS + a
+    #   deaerator mass:  CR + b + q rate f + a = (1 + vent) f
+    #   deaerator energy: CR h_cr + b h_mu + q rate f h_fs + a h_ls = vent f h_vt + f h_dw + loss
+    rows = [
+        [-1.0, 0.0, 1 - rate, ps_.m],
+        [1.0, 1.0, q * rate - 1 - vent, -cr.m],
+        [ls.h, mu.h, q * rate * fs.h - vent * vt.h - dw.h, loss - cr.m * cr.h],
+    ]
+    a, b, f = solve3(rows)
+    for s_, m in ((ls, a), (ls0, a), (mu, b), (dw, f), (fw, f), (ms, (1 - rate) * f), (bd, rate * f),
+                  (fs, q * rate * f), (bl, (1 - q) * rate * f), (vt, vent * f)):
+        s_.m = m
+    duty = ms.m * ms.h + bd.m * bd.h - fw.m * fw.h
+    fp = {"W": dw.m * (fw.h - dw.h), "S_gen": sflow([fw], [dw])}
+    # Boiler without T_boundary: only the pressure drop inside the fluid counts (heated_sgen),
+    # for each outlet.
+    b1 = {"Q": duty, "S_gen": ms.m * (ms.s - ph(fw.p, ms.h).s) + bd.m * (bd.s - ph(fw.p, bd.h).s)}
+    return {"DW": dw, "FW": fw, "MS": ms, "PS": ps_, "LS0": ls0, "LS": ls, "BD": bd, "FS": fs, "BL": bl,
+            "CR": cr, "MU": mu, "VT": vt}, {
+        "FP": fp,
+        "B1": b1,
+        "SH": {"S_gen": sflow([ps_, ls0], [ms])},
+        "PRV": {"S_gen": sflow([ls], [ls0])},
+        "BFT": {"S_gen": sflow([fs, bl], [bd])},
+        "DA": {"S_gen": sflow([vt, dw], [cr, mu, fs, ls]) + loss / T0},
+    }
+
+
+def solve3(rows):
+    """Solves three linear equations, each row [c1, c2, c3, rhs], by Cramer's rule."""
+    def det(m):
+        return (m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) - m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0])
+                + m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]))
+    a = [r[:3] for r in rows]
+    d = det(a)
+    out = []
+    for k in range(3):
+        m = [r[:3] for r in rows]
+        for i in range(3):
+            m[i][k] = rows[i][3]
+        out.append(det(m) / d)
+    return out
+
+
 EXAMPLES = {
+    "boiler_house.hmb": boiler_house,
     "condensing_turbine.hmb": condensing_turbine,
     "deaerator.hmb": deaerator,
     "flash_recovery.hmb": flash_recovery,

@@ -7,7 +7,9 @@ type PortSpec struct {
 	Role  string
 	Inlet bool // true: the stream flows into the unit
 	Many  bool // one or more streams may take this role (e.g. mixer inlets)
-	Doc   string
+	// Optional roles may name no stream (a boiler without blowdown).
+	Optional bool
+	Doc      string
 }
 
 // ParamSpec describes one parameter of a unit kind.
@@ -20,6 +22,8 @@ type ParamSpec struct {
 	// first (an exchanger's flow arrangement); a file states one as a name: "arrangement
 	// parallel". It is lowered to Unit.Options.
 	Words []string
+	// Needs is a role the parameter needs a stream for (blowdown_rate needs a blowdown).
+	Needs string
 }
 
 // ResultSpec describes one result: a value the solver finds for a stream or a unit, which outputs
@@ -116,8 +120,8 @@ var TotalResults = []ResultSpec{
 	{Name: "net_power", Dim: units.ShaftPower, Doc: "power_out - power_in"},
 	{Name: "heat_in", Dim: units.Power, Doc: "heat added by boilers and heaters (and exchangers heated from outside the file)"},
 	{Name: "heat_out", Dim: units.Power, Doc: "heat removed by coolers and condensers (exchangers cooled from outside the file)"},
-	{Name: "efficiency", Dim: units.Dimensionless, Doc: "net_power / heat_in: the cycle's thermal efficiency"},
-	{Name: "heat_rate", Dim: units.HeatRate, Doc: "heat_in / net_power: heat per unit of net work (kJ/kWh or Btu/kWh)"},
+	{Name: "efficiency", Dim: units.Dimensionless, Doc: "net_power / heat_in: the cycle's thermal efficiency (none without net power)"},
+	{Name: "heat_rate", Dim: units.HeatRate, Doc: "heat_in / net_power: heat per unit of net work, kJ/kWh or Btu/kWh (none without net power)"},
 }
 
 // Subject is a stream or a unit of a model, by index into Model.Streams or Model.Units.
@@ -190,7 +194,7 @@ var (
 
 // Kinds is the catalogue of unit kinds, by name.
 var Kinds = map[string]*Kind{
-	"mixer": {Name: "mixer", Doc: "adiabatic mixing chamber, open feedwater heater or deaerator: inlets mix into one outlet",
+	"mixer": {Name: "mixer", Doc: "adiabatic mixing chamber or open feedwater heater: inlets mix into one outlet",
 		Ports: []PortSpec{ins, out}, Params: []ParamSpec{loss, dp},
 		Results: []ResultSpec{lossR, dpR, sgen}},
 	"splitter": {Name: "splitter", Doc: "tee: outlets leave at the inlet state",
@@ -202,13 +206,22 @@ var Kinds = map[string]*Kind{
 	"cooler": {Name: "cooler", Doc: "heat removed from one stream",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dp, tBound},
 		Results: []ResultSpec{{Name: "duty", Dim: units.Power, Doc: "heat removed from the fluid"}, dpR, sgen}},
-	"boiler": {Name: "boiler", Doc: "steam generator: feedwater heated to steam",
-		Ports: []PortSpec{in, out}, Params: []ParamSpec{duty, dp,
+	"boiler": {Name: "boiler", Doc: "steam generator: feedwater heated to steam, with an optional blowdown of saturated drum water",
+		Ports: []PortSpec{in, out, {Role: "blowdown", Optional: true, Doc: "blowdown: saturated liquid purged from the drum at the steam outlet pressure (optional)"}},
+		Params: []ParamSpec{duty, dp,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency: duty over fuel input"},
-			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}, tBound},
+			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input"}, tBound,
+			{Name: "blowdown_rate", Dim: units.Dimensionless, Needs: "blowdown", Doc: "blowdown flow as a share of the feedwater flow (needs a blowdown stream)"}},
 		Results: []ResultSpec{dutyIn,
 			{Name: "efficiency", Dim: units.Dimensionless, Doc: "boiler efficiency, duty over fuel input, given or solved"},
-			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input, given or solved"}, dpR, sgen}},
+			{Name: "fuel", Dim: units.Power, Doc: "fuel heat input, given or solved"}, dpR,
+			{Name: "blowdown_rate", Dim: units.Dimensionless, Doc: "blowdown flow over feedwater flow, given or solved (none without a blowdown stream)"}, sgen}},
+	"deaerator": {Name: "deaerator", Doc: "deaerator with a vent: inlets (water and heating steam) meet in a tank; saturated steam leaves by the vent and saturated water below, both at the tank pressure",
+		Ports: []PortSpec{ins, {Role: "vent", Doc: "vent: saturated steam at the tank pressure"}, {Role: "out", Doc: "deaerated water: saturated liquid at the tank pressure"}},
+		Params: []ParamSpec{loss, {Name: "dp", Dim: units.Pressure, Delta: true, Doc: "tank pressure below the lowest inlet pressure"},
+			{Name: "vent_rate", Dim: units.Dimensionless, Doc: "vent flow as a share of the deaerated water flow"}},
+		Results: []ResultSpec{lossR, dpR,
+			{Name: "vent_rate", Dim: units.Dimensionless, Doc: "vent flow over deaerated water flow, given or solved"}, sgen}},
 	"turbine": {Name: "turbine", Doc: "adiabatic expansion producing shaft power",
 		Ports: []PortSpec{in, out}, Params: []ParamSpec{effIsen,
 			{Name: "power", Dim: units.ShaftPower, Doc: "shaft power produced"}},

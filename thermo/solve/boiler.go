@@ -9,6 +9,8 @@ import "hmb/thermo/units"
 //	pressure: p_out = p_in - dp
 //	fuel:     duty = efficiency * fuel      (only when efficiency or fuel is given)
 //
+// With a blowdown stream the mass and energy balances take it as a second outlet (blowdown.go).
+//
 // Entropy generation as for the heater (heater.go): with T_boundary (the flue gas temperature the
 // heat comes from) S_gen = m (s_out - s_in) - duty / T_boundary; without it the furnace lies
 // outside the boundary and only the fluid's pressure drop counts.
@@ -17,8 +19,13 @@ func init() { ops["boiler"] = unitOp{buildBoiler, finishBoiler} }
 func buildBoiler(b *builder, u int) {
 	in, out := b.port(u, "in"), b.port(u, "out")
 	q := b.param(u, "duty", true, 0)
-	b.massBalance(u, []int{in}, []int{out})
-	b.energyBalance(u, "", []int{in}, []int{out}, []term{q}, nil)
+	outs := []int{out}
+	if bd := b.port(u, "blowdown"); bd >= 0 {
+		outs = append(outs, bd)
+		b.blowdown(u, in, out, bd)
+	}
+	b.massBalance(u, []int{in}, outs)
+	b.energyBalance(u, "", []int{in}, outs, []term{q}, nil)
 	b.pressureDrop(u, in, out, b.drop(u, "dp"), "")
 	un := b.m.Units[u]
 	if un.Params["efficiency"] == nil && un.Params["fuel"] == nil {

@@ -506,7 +506,7 @@ func (b *builder) checkPorts(u int) bool {
 	}
 	for _, ps := range un.Kind.Ports {
 		n := count[ps.Role]
-		if n == 0 || (n > 1 && !ps.Many) {
+		if n == 0 && !ps.Optional || (n > 1 && !ps.Many) {
 			want := "one stream"
 			if ps.Many {
 				want = "at least one stream"

@@ -13,6 +13,7 @@ const (
 	CodeNegativeFlow       = "HMB407"
 	CodeOutletState        = "HMB408"
 	CodeOverspray          = "HMB409"
+	CodeVolumeNotLiquid    = "HMB420"
 
 	CodeUnderSpecified = "HMB501"
 	CodeConflict       = "HMB502"
@@ -29,6 +30,7 @@ const (
 	CodeFlashFeed      = "HMB513"
 	CodePressureRise   = "HMB514"
 	CodeApproach       = "HMB515"
+	CodeDeaeratorFeed  = "HMB530"
 
 	CodeExpectFailed   = "HMB601"
 	CodeExpectUnsolved = "HMB602"
@@ -46,6 +48,7 @@ var Codes = []model.CodeInfo{
 	{Code: CodeNegativeFlow, Name: "negative-flow", Severity: model.Error, Summary: "a solved mass flow is negative: the givens named force the stream against its stated direction", Help: "A solved flow runs against its stated direction, which no plant does; the givens named in the message force it: correct one of them."},
 	{Code: CodeOutletState, Name: "outlet-state-contradicts-unit", Severity: model.Error, Summary: "an outlet state contradicts the unit's model (a flash tank's vapour or liquid not saturated at the tank pressure)", Help: "The givens leave an outlet in a state the unit cannot deliver (a flash tank's outlets leave saturated at the tank pressure); one of the givens named is wrong or one too many."},
 	{Code: CodeOverspray, Name: "desuperheater-overspray", Severity: model.Warning, Summary: "a desuperheater's outlet is wet: more spray water than the steam can evaporate", Help: "The spray water is more than the steam can evaporate, so water reaches the pipe downstream; aim the outlet above the saturation temperature."},
+	{Code: CodeVolumeNotLiquid, Name: "volume-flow-not-liquid", Severity: model.Error, Summary: "a flow given in volume units (gpm, m3/h, L/s) on a stream that is not liquid", Help: "A volume flow is taken at the stream's own density, which is well defined for a liquid; a steam or wet-steam flow is metered and stated as a mass flow (kg/s, t/h, lbm/h): give it in mass units."},
 
 	{Code: CodeUnderSpecified, Name: "under-specified", Severity: model.Error, Summary: "the system is under-specified: some unknowns are fixed by no given or balance", Help: "Some unknowns are fixed by no given or balance; state one of the values the message lists."},
 	{Code: CodeConflict, Name: "conflicting-given", Severity: model.Error, Summary: "a given conflicts with the value the other givens and the balances fix", Help: "A given disagrees with the value the other givens and the balances fix; drop one or correct it."},
@@ -62,6 +65,7 @@ var Codes = []model.CodeInfo{
 	{Code: CodeFlashFeed, Name: "flash-feed-single-phase", Severity: model.Error, Summary: "a flash tank's feed is subcooled (nothing can flash) or superheated (no liquid is left) at the tank pressure", Help: "A flash tank splits a feed that lies inside the saturation dome at the tank pressure; lower the tank pressure or check the feed's state."},
 	{Code: CodePressureRise, Name: "flow-against-pressure", Severity: model.Error, Summary: "a stream would flow to a higher pressure through a unit that cannot raise it (or a turbine's outlet is above its inlet)", Help: "Only a pump raises the pressure of a stream; a feed below the pressure it enters, or an outlet above its inlet, needs a pump or a corrected pressure."},
 	{Code: CodeApproach, Name: "approach-below-minimum", Severity: model.Warning, Summary: "an exchanger's minimum temperature difference is below its min_approach", Help: "The closest approach of the hot and cold profiles is below the minimum the unit states: the exchanger would need more area than intended."},
+	{Code: CodeDeaeratorFeed, Name: "deaerator-feed-off-saturation", Severity: model.Error, Summary: "a deaerator's inlets, mixed, are subcooled (too little heating steam) or superheated (no water left) at the tank pressure", Help: "A deaerator heats its water to saturation at the tank pressure with steam: give more heating steam (or leave its flow to the balances), a lower tank pressure, or check the inlet states."},
 
 	{Code: CodeExpectFailed, Name: "expectation-failed", Severity: model.Error, Summary: "an expectation does not hold for the solved values", Help: "An expectation does not hold for the solved values."},
 	{Code: CodeExpectUnsolved, Name: "expectation-unsolved", Severity: model.Error, Summary: "an expectation cannot be checked: the value it names was not solved", Help: "The value the expectation names was not solved."},

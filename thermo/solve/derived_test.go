@@ -120,8 +120,8 @@ func TestTotalsExchangers(t *testing.T) {
 	if !(q > 0) || r.Totals.HeatIn != q || r.Totals.HeatOut != 0 {
 		t.Errorf("hot side from outside: heat in %g, out %g, duty %g", r.Totals.HeatIn, r.Totals.HeatOut, q)
 	}
-	if v, _, _ := r.Value(m, model.Subject{Kind: model.TotalSubject}, "efficiency"); v != 0 {
-		t.Errorf("efficiency with no power %g, want 0", v)
+	if v, _, _ := r.Value(m, model.Subject{Kind: model.TotalSubject}, "efficiency"); !math.IsNaN(v) {
+		t.Errorf("efficiency with no power %g, want none", v)
 	}
 	if v, _, _ := r.Value(m, model.Subject{Kind: model.TotalSubject}, "heat_rate"); !math.IsNaN(v) {
 		t.Errorf("heat rate with no power %g, want none", v)

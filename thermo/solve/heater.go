@@ -45,10 +45,11 @@ func finishHeated(c *unitCalc) {
 	c.res.Q = q
 	in, out := c.ports("in"), c.ports("out")
 	c.pressureRise(in[0], out[0], "")
-	if !c.flows(in, out, sign*q, 0) {
+	outs := append(out, c.ports("blowdown")...) // a boiler's blowdown leaves too
+	if !c.flows(in, outs, sign*q, 0) {
 		return
 	}
-	ds := c.entropyFlow(in, out)
+	ds := c.entropyFlow(in, outs)
 	if tb := c.param("T_boundary", nanf); finite(tb) {
 		c.res.TBoundary = tb
 		c.res.Sgen = ds - c.heatEntropy(sign*q, tb, "the duty crossing at T_boundary")
@@ -57,13 +58,19 @@ func finishHeated(c *unitCalc) {
 		}
 		return
 	}
-	sin, m, _ := c.state(in[0])
-	sout, _, _ := c.state(out[0])
-	if iso, err := statePH(sin.P, sout.H); err == nil {
-		c.res.Sgen = m * (sout.S - iso.S)
-		c.res.SgenFluidOnly = true
-		c.checkSgen()
+	sin, _, _ := c.state(in[0])
+	var sg float64
+	for _, o := range outs {
+		so, m, _ := c.state(o)
+		iso, err := statePH(sin.P, so.H)
+		if err != nil {
+			return
+		}
+		sg += m * (so.S - iso.S)
 	}
+	c.res.Sgen = sg
+	c.res.SgenFluidOnly = true
+	c.checkSgen()
 }
 
 // boundaryCross reports a T_boundary on the wrong side of the fluid's temperatures: heat added

@@ -34,7 +34,14 @@ func buildMixer(b *builder, u int) {
 	dp := b.drop(u, "dp")
 	b.massBalance(u, ins, out)
 	b.energyBalance(u, "", ins, out, nil, []term{loss})
-	pout := b.pv(out[0])
+	b.lowestInlet(u, ins, out[0], dp, "outlet")
+}
+
+// lowestInlet adds p_out = min_k p_in,k - dp: a vessel (a mixer, a deaerator's tank) runs at
+// its lowest inlet pressure less its drop; the streams at higher pressures throttle in. what
+// names the pressure in the equation ("outlet", "tank").
+func (b *builder) lowestInlet(u int, ins []int, out int, dp term, what string) {
+	pout := b.pv(out)
 	vars := []int{pout}
 	var pins []int
 	for _, s := range ins {
@@ -50,7 +57,7 @@ func buildMixer(b *builder, u int) {
 		return p
 	}
 	b.unitEq(u, Equation{
-		Label: "pressure of " + b.uname(u), Kind: EqPressure, Dim: units.Pressure, LHS: "outlet", RHS: "lowest inlet less drop", Vars: vars,
+		Label: "pressure of " + b.uname(u), Kind: EqPressure, Dim: units.Pressure, LHS: what, RHS: "lowest inlet less drop", Vars: vars,
 		eval: func(x []float64) (float64, float64, error) { return x[pout], lowest(x) - x[dp.v], nil },
 		direct: func(x []float64, v int) (float64, error) {
 			switch v {

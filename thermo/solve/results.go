@@ -113,6 +113,20 @@ func (c unitCtx) drop(roles ...string) float64 {
 	return lo - hi
 }
 
+// share is the solved flow of the unit's stream of role part over that of role whole; NaN
+// when the unit has no such stream or a flow is missing.
+func (c unitCtx) share(part, whole string) float64 {
+	p, w := portOf(c.un, part), portOf(c.un, whole)
+	if p < 0 || w < 0 || p >= len(c.res.Streams) || w >= len(c.res.Streams) {
+		return math.NaN()
+	}
+	mp, mw := c.res.Streams[p].M, c.res.Streams[w].M
+	if mw == 0 {
+		return math.NaN()
+	}
+	return mp / mw
+}
+
 func has(s []string, v string) bool {
 	for _, w := range s {
 		if w == v {
@@ -145,11 +159,13 @@ var unitValues = map[string]func(c unitCtx) float64{
 		}
 		return c.drop()
 	},
-	"dp_hot":  func(c unitCtx) float64 { return c.drop("hot_in", "hot_out") },
-	"dp_cold": func(c unitCtx) float64 { return c.drop("cold_in", "cold_out") },
-	"dT_min":  func(c unitCtx) float64 { return c.r.DTMin },
-	"lmtd":    func(c unitCtx) float64 { return c.r.LMTD },
-	"UA":      func(c unitCtx) float64 { return c.r.UA },
+	"dp_hot":        func(c unitCtx) float64 { return c.drop("hot_in", "hot_out") },
+	"dp_cold":       func(c unitCtx) float64 { return c.drop("cold_in", "cold_out") },
+	"blowdown_rate": func(c unitCtx) float64 { return c.share("blowdown", "in") },
+	"vent_rate":     func(c unitCtx) float64 { return c.share("vent", "out") },
+	"dT_min":        func(c unitCtx) float64 { return c.r.DTMin },
+	"lmtd":          func(c unitCtx) float64 { return c.r.LMTD },
+	"UA":            func(c unitCtx) float64 { return c.r.UA },
 }
 
 // totalValues computes each result of the whole file from its Totals.
@@ -159,11 +175,13 @@ var totalValues = map[string]func(t *Totals) float64{
 	"net_power": func(t *Totals) float64 { return t.PowerOut - t.PowerIn },
 	"heat_in":   func(t *Totals) float64 { return t.HeatIn },
 	"heat_out":  func(t *Totals) float64 { return t.HeatOut },
+	// A plant that makes no net power (a process steam plant: pumps only) has no cycle
+	// efficiency and no heat rate.
 	"efficiency": func(t *Totals) float64 {
-		if !(t.HeatIn > 0) {
-			return math.NaN()
+		if net := t.PowerOut - t.PowerIn; net > 0 && t.HeatIn > 0 {
+			return net / t.HeatIn
 		}
-		return (t.PowerOut - t.PowerIn) / t.HeatIn
+		return math.NaN()
 	},
 	"heat_rate": func(t *Totals) float64 {
 		if net := t.PowerOut - t.PowerIn; net > 0 && t.HeatIn > 0 {

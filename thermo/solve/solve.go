@@ -230,6 +230,7 @@ func (s *solveRun) run() {
 	s.res.X = s.x
 	s.res.run = s
 	s.streamResults()
+	s.volumeFlows()
 	sys.memo = nil
 	s.res.Units = make([]UnitResult, len(s.m.Units))
 	for i := range s.res.Units {

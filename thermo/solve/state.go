@@ -34,6 +34,7 @@ func satWindow(g *model.Given) float64 { return max(g.Tol, satTolMin) }
 func (b *builder) streamGivens(i int) {
 	s := b.m.Streams[i]
 	name := s.Name
+	b.volumeGiven(i)
 	if g := s.Given[model.Flow]; g != nil {
 		if !finite(g.Value) {
 			b.diag(model.Error, CodeStructure, g.Span, fmt.Sprintf("%s flow is not a finite number", name))

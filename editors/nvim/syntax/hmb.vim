@@ -17,10 +17,10 @@ syn match   hmbTarget    "\k\+" contained nextgroup=hmbProperty skipwhite
 syn keyword hmbSetting   title atmosphere elevation tolerance ambient project document revision prepared_by checked_by date display_flow display_vol_flow display_pressure display_temperature display_enthalpy display_entropy display_volume display_density display_power display_duty display_heat_rate
 syn keyword hmbSetting   display nextgroup=hmbSystem skipwhite
 syn keyword hmbSystem    SI US contained
-syn keyword hmbKind      boiler cooler desuperheater exchanger flash heater mixer pump splitter turbine valve nextgroup=hmbUnitDecl skipwhite
+syn keyword hmbKind      boiler cooler deaerator desuperheater exchanger flash heater mixer pump splitter turbine valve nextgroup=hmbUnitDecl skipwhite
 syn match   hmbUnitDecl  "\k\+" contained
-syn keyword hmbRole      in out steam water hot_in hot_out cold_in cold_out vapor liquid vapour
-syn keyword hmbProperty  flow p T h s x v rho vol_flow Tsat superheat subcooling power_out power_in net_power heat_in heat_out efficiency heat_rate duty dp fuel T_boundary sgen heat_loss dp_hot dp_cold arrangement min_approach dT_min lmtd UA power
+syn keyword hmbRole      in out blowdown vent steam water hot_in hot_out cold_in cold_out vapor liquid vapour
+syn keyword hmbProperty  flow p T h s x v rho vol_flow Tsat superheat subcooling power_out power_in net_power heat_in heat_out efficiency heat_rate duty dp fuel T_boundary blowdown_rate sgen heat_loss vent_rate dp_hot dp_cold arrangement min_approach dT_min lmtd UA power
 syn keyword hmbProperty  fluid nextgroup=hmbFluid skipwhite
 syn keyword hmbFluid     water steam contained
 syn keyword hmbOperator  within
