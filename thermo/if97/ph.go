@@ -90,19 +90,35 @@ func pressureAnd(p, y float64, k second) (State, error) {
 	if pm >= pTriple && pm <= pSat623 {
 		ts = tsat(pm)
 	}
+	// below and above compare y with a dividing line at pm: the tabulated curve decides when it
+	// can (see curve), else the line's value at(region, t) does.
+	lines := &boundaries[k]
+	lnp := math.Log(pm)
+	below := func(c *curve, region int, t float64) bool {
+		if s := c.side(pm, lnp, y); s != 0 {
+			return s < 0
+		}
+		return y < at(region, t)
+	}
+	above := func(c *curve, region int, t float64) bool {
+		if s := c.side(pm, lnp, y); s != 0 {
+			return s > 0
+		}
+		return y > at(region, t)
+	}
 	// Region 1 lies below the liquid side or the 623.15 K isotherm.
 	liquid := func() (State, bool, error) {
 		if pm < pTriple {
 			return State{}, false, nil
 		}
-		t1hi := t13
+		t1hi, line := t13, &lines.top1
 		if pm <= pSat623 {
-			t1hi = ts
+			t1hi, line = ts, &lines.liq
 		}
-		if y > at(1, t1hi) {
+		if above(line, 1, t1hi) {
 			return State{}, false, nil
 		}
-		if y < at(1, tMin) {
+		if below(&lines.min1, 1, tMin) {
 			return State{}, true, limit()
 		}
 		st, err := solveT(1, pm, y, k, tMin, t1hi)
@@ -111,22 +127,25 @@ func pressureAnd(p, y float64, k second) (State, error) {
 	// Regions 2 and 5 lie above the vapour side or the 2-3 boundary.
 	vapour := func() (State, bool, error) {
 		var t2lo float64
+		line := &lines.vap
 		switch {
 		case pm < pTriple:
 			t2lo = tMin
 		case pm <= pSat623:
 			t2lo = ts
 		default:
-			t2lo = tB23(pm)
+			t2lo, line = tB23(pm), &lines.b23
 		}
-		y2lo := at(2, t2lo)
-		if y < y2lo && pm >= pTriple {
-			return State{}, false, nil
+		if pm < pTriple {
+			line = &noCurve // no table below the triple point: always evaluated
 		}
-		if y < y2lo {
+		if below(line, 2, t2lo) {
+			if pm >= pTriple {
+				return State{}, false, nil
+			}
 			return State{}, true, limit()
 		}
-		if y <= at(2, tMax25) {
+		if !above(&lines.max2, 2, tMax25) {
 			st, err := solveT(2, pm, y, k, t2lo, tMax25)
 			return st, true, err
 		}
@@ -148,8 +167,14 @@ func pressureAnd(p, y float64, k second) (State, error) {
 	if st, done, err := then(); done {
 		return st, err
 	}
-	if pm <= pCrit {
-		liq, vap, err := satEnds(pm, clampT(tsat(pm)))
+	// Above 623.15 K the saturation line lies in region 3; a (p, y) surely outside it is single
+	// phase without evaluating the saturated ends.
+	outside := pm > pSat623 && (lines.liq3.side(pm, lnp, y) < 0 || lines.vap3.side(pm, lnp, y) > 0)
+	if pm <= pCrit && !outside {
+		if ts == 0 {
+			ts = tsat(pm)
+		}
+		liq, vap, err := satEnds(pm, clampT(ts))
 		if err != nil {
 			return State{}, err
 		}

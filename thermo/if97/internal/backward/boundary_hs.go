@@ -7,12 +7,8 @@ import "math"
 //
 // Valid for s'(273.15 K) = -1.545495919e-4 <= s <= s'(623.15 K) = 3.778281340 kJ/(kg K).
 func HSat1(s float64) float64 {
-	var x [33]float64
-	var y [37]float64
 	sigma := s * (1.0 / 3.8)
-	powers(x[:], sigma-1.09)
-	powers(y[:], sigma+0.366e-4)
-	return 1700 * sum(hsat1[:], x[:], 0, y[:], 0)
+	return 1700 * sumHsat1(sigma-1.09, sigma+0.366e-4)
 }
 
 // HSat3 is the saturated-liquid line on the region 3 side, h'_3a(s), IAPWS SR4-04(2014)
@@ -20,12 +16,8 @@ func HSat1(s float64) float64 {
 //
 // Valid for s'(623.15 K) = 3.778281340 <= s <= sc = 4.412021482 kJ/(kg K).
 func HSat3(s float64) float64 {
-	var x [33]float64
-	var y [37]float64
 	sigma := s * (1.0 / 3.8)
-	powers(x[:], sigma-1.09)
-	powers(y[:], sigma+0.366e-4)
-	return 1700 * sum(hsat3[:], x[:], 0, y[:], 0)
+	return 1700 * sumHsat3(sigma-1.09, sigma+0.366e-4)
 }
 
 // HSat2ab is the saturated-vapour line bounding subregions 2a and 2b, h″_2ab(s),
@@ -34,11 +26,7 @@ func HSat3(s float64) float64 {
 //
 // Valid for 5.85 <= s <= s″(273.15 K) = 9.155759395 kJ/(kg K).
 func HSat2ab(s float64) float64 {
-	var x [37]float64
-	var y [33]float64
-	powers(x[:], 5.21/s-0.513)
-	powers(y[:], s*(1.0/9.2)-0.524)
-	return 2800 * math.Exp(sum(hsat2ab[:], x[:], 0, y[:], 0))
+	return 2800 * math.Exp(sumHsat2ab(5.21/s-0.513, s*(1.0/9.2)-0.524))
 }
 
 // HSat2c3b is the saturated-vapour line bounding subregions 2c and 3b, h″_2c3b(s),
@@ -47,12 +35,8 @@ func HSat2ab(s float64) float64 {
 //
 // Valid for sc = 4.412021482 <= s <= 5.85 kJ/(kg K).
 func HSat2c3b(s float64) float64 {
-	var x [37]float64
-	var y [37]float64
 	sigma := s * (1.0 / 5.9)
-	powers(x[:], sigma-1.02)
-	powers(y[:], sigma-0.726)
-	r := sum(hsat2c3b[:], x[:], 0, y[:], 0)
+	r := sumHsat2c3b(sigma-1.02, sigma-0.726)
 	r *= r
 	return 2800 * r * r
 }
@@ -63,12 +47,8 @@ func HSat2c3b(s float64) float64 {
 //
 // Valid for s(100 MPa, 623.15 K) = 3.397782955 <= s <= s'(623.15 K) = 3.778281340 kJ/(kg K).
 func HB13(s float64) float64 {
-	var x [7]float64
-	var y [15]float64
 	sigma := s * (1.0 / 3.8)
-	powers(x[:], sigma-0.884)
-	powersSigned(y[:], 12, sigma-0.864)
-	return 1700 * sum(hb13[:], x[:], 0, y[:], 12)
+	return 1700 * sumHb13(sigma-0.884, sigma-0.864)
 }
 
 // TB23hs is the temperature on the boundary between regions 2 and 3 as a function of h and s,
@@ -79,11 +59,7 @@ func HB13(s float64) float64 {
 // Valid for 5.048096828 <= s <= 5.260578707 kJ/(kg K) and
 // 2.563592004e3 <= h <= 2.812942061e3 kJ/kg.
 func TB23hs(h, s float64) float64 {
-	var x [27]float64
-	var y [23]float64
-	powersSigned(x[:], 12, h*(1.0/3000)-0.727)
-	powersSigned(y[:], 12, s*(1.0/5.3)-0.864)
-	return 900 * sum(tb23hs[:], x[:], 12, y[:], 12)
+	return 900 * sumTb23hs(h*(1.0/3000)-0.727, s*(1.0/5.3)-0.864)
 }
 
 // IAPWS SR4-04(2014), coefficient table of Eq. 3: exponents I, J and coefficients n of h'_1(s).

@@ -15,3 +15,5 @@
 // are pure and allocation-free. They do not check their inputs: outside the stated range of
 // validity they return a number (or NaN/Inf) of no meaning, and the caller decides the region.
 package backward
+
+//go:generate go run ../polygen

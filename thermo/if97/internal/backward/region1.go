@@ -6,11 +6,7 @@ package backward
 // Valid in region 1 (273.15 K <= T <= 623.15 K, ps(T) <= p <= 100 MPa), not in the metastable
 // superheated liquid. It differs from the basic equation by up to about 25 mK.
 func T1ph(p, h float64) float64 {
-	var x [7]float64
-	var y [33]float64
-	powers(x[:], p)
-	powers(y[:], h*(1.0/2500)+1)
-	return sum(t1ph[:], x[:], 0, y[:], 0)
+	return sumT1ph(p, h*(1.0/2500)+1)
 }
 
 // T1ps is the region 1 backward equation T(p,s), IAPWS R7-97(2012) Eq. 13:
@@ -18,11 +14,7 @@ func T1ph(p, h float64) float64 {
 //
 // Valid in region 1 as T1ph.
 func T1ps(p, s float64) float64 {
-	var x [5]float64
-	var y [33]float64
-	powers(x[:], p)
-	powers(y[:], s+2)
-	return sum(t1ps[:], x[:], 0, y[:], 0)
+	return sumT1ps(p, s+2)
 }
 
 // P1hs is the region 1 backward equation p(h,s), IAPWS SR2-01(2014) Eq. 1:
@@ -31,11 +23,7 @@ func T1ps(p, s float64) float64 {
 // Valid in region 1 (273.15 K <= T <= 623.15 K, ps(T) <= p <= 100 MPa); in h-s terms roughly
 // from the saturated-liquid line h'(s) up to the 100 MPa isobar and the 623.15 K isotherm.
 func P1hs(h, s float64) float64 {
-	var x [6]float64
-	var y [15]float64
-	powers(x[:], h*(1.0/3400)+0.05)
-	powers(y[:], s*(1.0/7.6)+0.05)
-	return 100 * sum(p1hs[:], x[:], 0, y[:], 0)
+	return 100 * sumP1hs(h*(1.0/3400)+0.05, s*(1.0/7.6)+0.05)
 }
 
 // IAPWS R7-97(2012), Table 6: exponents I, J and coefficients n of Eq. 11, T1(p,h).

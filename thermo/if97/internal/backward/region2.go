@@ -49,29 +49,17 @@ func T2ph(p, h float64) float64 {
 
 // t2aPH is R7-97(2012) Eq. 22: θ = Σ n·π^I·(η-2.1)^J, π = p/1 MPa, η = h/2000 kJ/kg.
 func t2aPH(p, h float64) float64 {
-	var x [8]float64
-	var y [45]float64
-	powers(x[:], p)
-	powers(y[:], h*(1.0/2000)-2.1)
-	return sum(t2aph[:], x[:], 0, y[:], 0)
+	return sumT2aph(p, h*(1.0/2000)-2.1)
 }
 
 // t2bPH is R7-97(2012) Eq. 23: θ = Σ n·(π-2)^I·(η-2.6)^J.
 func t2bPH(p, h float64) float64 {
-	var x [10]float64
-	var y [41]float64
-	powers(x[:], p-2)
-	powers(y[:], h*(1.0/2000)-2.6)
-	return sum(t2bph[:], x[:], 0, y[:], 0)
+	return sumT2bph(p-2, h*(1.0/2000)-2.6)
 }
 
 // t2cPH is R7-97(2012) Eq. 24: θ = Σ n·(π+25)^I·(η-1.8)^J.
 func t2cPH(p, h float64) float64 {
-	var x [14]float64
-	var y [23]float64
-	powersSigned(x[:], 7, p+25)
-	powers(y[:], h*(1.0/2000)-1.8)
-	return sum(t2cph[:], x[:], 7, y[:], 0)
+	return sumT2cph(p+25, h*(1.0/2000)-1.8)
 }
 
 // T2ps is the region 2 backward equation T(p,s), IAPWS R7-97(2012) Eqs. 25 (subregion 2a,
@@ -92,29 +80,17 @@ func T2ps(p, s float64) float64 {
 // t2aPS is R7-97(2012) Eq. 25: θ = Σ n·π^I·(σ-2)^J, π = p/1 MPa, σ = s/2 kJ/(kg K). The
 // exponents I run from -1.5 to 1.5 in steps of 0.25, so every π^I is a power of π^(1/4).
 func t2aPS(p, s float64) float64 {
-	var x [13]float64
-	var y [46]float64
-	powersSigned(x[:], 6, math.Sqrt(math.Sqrt(p)))
-	powersSigned(y[:], 27, s*0.5-2)
-	return sum(t2aps[:], x[:], 6, y[:], 27)
+	return sumT2aps(math.Sqrt(math.Sqrt(p)), s*0.5-2)
 }
 
 // t2bPS is R7-97(2012) Eq. 26: θ = Σ n·π^I·(10-σ)^J, σ = s/0.7853 kJ/(kg K).
 func t2bPS(p, s float64) float64 {
-	var x [12]float64
-	var y [13]float64
-	powersSigned(x[:], 6, p)
-	powers(y[:], 10-s*(1.0/0.7853))
-	return sum(t2bps[:], x[:], 6, y[:], 0)
+	return sumT2bps(p, 10-s*(1.0/0.7853))
 }
 
 // t2cPS is R7-97(2012) Eq. 27: θ = Σ n·π^I·(2-σ)^J, σ = s/2.9251 kJ/(kg K).
 func t2cPS(p, s float64) float64 {
-	var x [10]float64
-	var y [6]float64
-	powersSigned(x[:], 2, p)
-	powers(y[:], 2-s*(1.0/2.9251))
-	return sum(t2cps[:], x[:], 2, y[:], 0)
+	return sumT2cps(p, 2-s*(1.0/2.9251))
 }
 
 // IAPWS R7-97(2012), Table 20: exponents I, J and coefficients n of Eq. 22, T2a(p,h).

@@ -45,11 +45,7 @@ func P2hs(h, s float64) float64 {
 // p2aHS is SR2-01(2014) Eq. 3: π = (Σ n·(η-0.5)^I·(σ-1.2)^J)^4 with η = h/4200 kJ/kg,
 // σ = s/12 kJ/(kg K), p = π·4 MPa.
 func p2aHS(h, s float64) float64 {
-	var x [8]float64
-	var y [23]float64
-	powers(x[:], h*(1.0/4200)-0.5)
-	powers(y[:], s*(1.0/12)-1.2)
-	r := sum(p2ahs[:], x[:], 0, y[:], 0)
+	r := sumP2ahs(h*(1.0/4200)-0.5, s*(1.0/12)-1.2)
 	r *= r
 	return 4 * r * r
 }
@@ -57,11 +53,7 @@ func p2aHS(h, s float64) float64 {
 // p2bHS is SR2-01(2014) Eq. 4: π = (Σ n·(η-0.6)^I·(σ-1.01)^J)^4 with η = h/4100 kJ/kg,
 // σ = s/7.9 kJ/(kg K), p = π·100 MPa.
 func p2bHS(h, s float64) float64 {
-	var x [15]float64
-	var y [19]float64
-	powers(x[:], h*(1.0/4100)-0.6)
-	powers(y[:], s*(1.0/7.9)-1.01)
-	r := sum(p2bhs[:], x[:], 0, y[:], 0)
+	r := sumP2bhs(h*(1.0/4100)-0.6, s*(1.0/7.9)-1.01)
 	r *= r
 	return 100 * r * r
 }
@@ -69,11 +61,7 @@ func p2bHS(h, s float64) float64 {
 // p2cHS is SR2-01(2014) Eq. 5: π = (Σ n·(η-0.7)^I·(σ-1.1)^J)^4 with η = h/3500 kJ/kg,
 // σ = s/5.9 kJ/(kg K), p = π·100 MPa.
 func p2cHS(h, s float64) float64 {
-	var x [17]float64
-	var y [19]float64
-	powers(x[:], h*(1.0/3500)-0.7)
-	powers(y[:], s*(1.0/5.9)-1.1)
-	r := sum(p2chs[:], x[:], 0, y[:], 0)
+	r := sumP2chs(h*(1.0/3500)-0.7, s*(1.0/5.9)-1.1)
 	r *= r
 	return 100 * r * r
 }

@@ -7,11 +7,7 @@ package backward
 // Valid in region 4 for s >= s″(623.15 K) = 5.210887825 kJ/(kg K); the release gives no
 // such equation for wet steam of lower entropy.
 func TSatHS(h, s float64) float64 {
-	var x [29]float64
-	var y [37]float64
-	powers(x[:], h*(1.0/2800)-0.119)
-	powers(y[:], s*(1.0/9.2)-1.07)
-	return 550 * sum(tsaths[:], x[:], 0, y[:], 0)
+	return 550 * sumTsaths(h*(1.0/2800)-0.119, s*(1.0/9.2)-1.07)
 }
 
 // IAPWS SR4-04(2014), coefficient table of Eq. 9: exponents I, J and coefficients n of

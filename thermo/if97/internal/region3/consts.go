@@ -24,3 +24,5 @@ const sc = 4.41202148223476
 func nan() float64 { return math.NaN() }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+//go:generate go run ../polygen

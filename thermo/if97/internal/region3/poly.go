@@ -23,6 +23,9 @@ type poly struct {
 	ilo, ihi int
 	jlo, jhi int
 	usable   bool // exponents all lie in [minExp, maxExp]
+	// fast is the table's sum as straight-line code (poly_gen.go, by ../polygen): the same bits
+	// as the loop in sum, which remains for a table without it.
+	fast func(x, y float64) float64
 }
 
 func newPoly(t []term) poly {
@@ -63,6 +66,9 @@ func powers(tab *[nPowers]float64, x float64, lo, hi int) {
 func (p *poly) sum(x, y float64) float64 {
 	if !p.usable {
 		return nan()
+	}
+	if p.fast != nil {
+		return p.fast(x, y)
 	}
 	var px, py [nPowers]float64
 	powers(&px, x, p.ilo, p.ihi)
