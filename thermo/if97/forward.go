@@ -60,6 +60,13 @@ func h1(p, t float64) float64 {
 	return rGas * t * tau * gibbs1Gt(p/16.53, tau)
 }
 
+// region1HCp gives h and cp of region 1: what a Newton step in T on the enthalpy needs.
+func region1HCp(p, t float64) (h, cp float64) {
+	tau := 1386 / t
+	gt, gtt := gibbs1TauH(p/16.53, tau)
+	return rGas * t * tau * gt, -rGas * tau * tau * gtt
+}
+
 // region1HS gives h, s and cp of region 1: what a Newton step in T needs.
 func region1HS(p, t float64) (h, s, cp float64) {
 	tau := 1386 / t
@@ -142,7 +149,7 @@ func h2(p, t float64) float64 {
 func region2HCp(p, t float64) (h, cp float64) {
 	tau := 540 / t
 	_, g0t, g0tt := gibbs2Ideal(tau)
-	_, gt, gtt := gibbs2rTau(p, tau)
+	gt, gtt := gibbs2rTauH(p, tau)
 	return rGas * t * tau * (g0t + gt), -rGas * tau * tau * (g0tt + gtt)
 }
 

@@ -33,6 +33,8 @@ func (k second) name() string {
 func fwd(region int, pm, t float64, k second) (y, dy float64) {
 	var h, s, cp float64
 	switch {
+	case region == 1 && k == byH:
+		return region1HCp(pm, t) // spares gamma itself, which only s needs
 	case region == 1:
 		h, s, cp = region1HS(pm, t)
 	case region == 2 && k == byH:
@@ -170,6 +172,20 @@ func pressureAnd(p, y float64, k second) (State, error) {
 	// Above 623.15 K the saturation line lies in region 3; a (p, y) surely outside it is single
 	// phase without evaluating the saturated ends.
 	outside := pm > pSat623 && (lines.liq3.side(pm, lnp, y) < 0 || lines.vap3.side(pm, lnp, y) > 0)
+	// Between the saturated ends in regions 1 and 2 (satEnds takes region 3 for a Tsat that
+	// rounds above 623.15 K): a mixture needs only their first derivatives (satEndsMix); an end
+	// itself is the full state.
+	if pm <= pSat623 && pm >= pTriple && clampT(ts) <= t13 {
+		liq, vap := satEndsMix(pm, clampT(ts))
+		yl, yv := liq.H, vap.H
+		if k == byS {
+			yl, yv = liq.S, vap.S
+		}
+		yl, yv = yl*1e-3, yv*1e-3
+		if x := math.Min(math.Max((y-yl)/(yv-yl), 0), 1); x > 0 && x < 1 {
+			return mix(liq, vap, x), nil
+		}
+	}
 	if pm <= pCrit && !outside {
 		if ts == 0 {
 			ts = tsat(pm)

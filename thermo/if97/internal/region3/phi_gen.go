@@ -2,6 +2,8 @@
 
 package region3
 
+import "math"
+
 // n1 multiplies ln(delta) in IAPWS R7-97(2012), Eq. 28 and Table 30 (region 3).
 const n1 = 1.0658070028513
 
@@ -48,8 +50,8 @@ var table30 = [...]term{
 	{11, 26, -4.4923899061815e-05}, // n40
 }
 
-// sumsAt forms the tau sums of IAPWS R7-97(2012), Eq. 28 and Table 30 (region 3) for each run of equal I.
-func sumsAt(tau float64) (s tauSums) {
+// set forms the tau sums of IAPWS R7-97(2012), Eq. 28 and Table 30 (region 3) for each run of equal I.
+func (s *tauSums) set(tau float64) {
 	t1 := tau
 	t2 := t1 * t1
 	t3 := t2 * t1
@@ -159,5 +161,38 @@ func sumsAt(tau float64) (s tauSums) {
 	s[11].c = c11
 	s[11].ia = 11.0 * a11
 	s[11].iia = 110.0 * a11
-	return s
+}
+
+// phi evaluates IAPWS R7-97(2012), Eq. 28 and Table 30 (region 3) and its reduced derivatives (see phi) at delta and the sums' tau.
+func (s *tauSums) phi(delta float64) (f phi) {
+	d1 := delta
+	d2 := d1 * d1
+	d3 := d2 * d1
+	d4 := d2 * d2
+	d5 := d4 * d1
+	d6 := d3 * d3
+	d7 := d6 * d1
+	d8 := d4 * d4
+	d9 := d8 * d1
+	d10 := d5 * d5
+	d11 := d10 * d1
+	xb0 := s[0].b
+	xb1 := d1 * s[1].b
+	xb2 := d2 * s[2].b
+	xb3 := d3 * s[3].b
+	xb4 := d4 * s[4].b
+	xb5 := d5 * s[5].b
+	xb6 := d6 * s[6].b
+	xb7 := d7 * s[7].b
+	xb8 := d8 * s[8].b
+	xb9 := d9 * s[9].b
+	xb10 := d10 * s[10].b
+	xb11 := d11 * s[11].b
+	f.f = (((s[0].a + (d1*s[1].a + d2*s[2].a)) + (d3*s[3].a + (d4*s[4].a + d5*s[5].a))) + ((d6*s[6].a + (d7*s[7].a + d8*s[8].a)) + (d9*s[9].a + (d10*s[10].a + d11*s[11].a)))) + n1*math.Log(delta)
+	f.d = (((d1*s[1].ia + d2*s[2].ia) + (d3*s[3].ia + (d4*s[4].ia + d5*s[5].ia))) + ((d6*s[6].ia + (d7*s[7].ia + d8*s[8].ia)) + (d9*s[9].ia + (d10*s[10].ia + d11*s[11].ia)))) + n1
+	f.dd = (((d2*s[2].iia + d3*s[3].iia) + (d4*s[4].iia + (d5*s[5].iia + d6*s[6].iia))) + ((d7*s[7].iia + d8*s[8].iia) + (d9*s[9].iia + (d10*s[10].iia + d11*s[11].iia)))) - n1
+	f.t = (((xb0 + (xb1 + xb2)) + (xb3 + (xb4 + xb5))) + ((xb6 + (xb7 + xb8)) + (xb9 + (xb10 + xb11))))
+	f.tt = (((s[0].c + d1*s[1].c) + (d2*s[2].c + (d3*s[3].c + d4*s[4].c))) + ((d5*s[5].c + (d6*s[6].c + d7*s[7].c)) + (d8*s[8].c + (d9*s[9].c + d11*s[11].c))))
+	f.dt = (((1.0*xb1 + 2.0*xb2) + (3.0*xb3 + (4.0*xb4 + 5.0*xb5))) + ((6.0*xb6 + (7.0*xb7 + 8.0*xb8)) + (9.0*xb9 + (10.0*xb10 + 11.0*xb11))))
+	return f
 }

@@ -5,10 +5,10 @@ import (
 	"testing"
 )
 
-// TestSumsAt checks the generated straight-line sums against a plain loop over Table 30 (IAPWS
+// TestTauSums checks the generated straight-line sums against a plain loop over Table 30 (IAPWS
 // R7-97(2012)), the table itself being checked against the release's verification values by
 // TestTable33.
-func TestSumsAt(t *testing.T) {
+func TestTauSums(t *testing.T) {
 	for tau := 0.7; tau <= 1.05; tau += 0.0013 {
 		var want, size tauSums // size: the sums of the terms' magnitudes, which rounding scales with
 		for _, r := range table30 {
@@ -21,7 +21,8 @@ func TestSumsAt(t *testing.T) {
 			size[i].b += math.Abs(j * y)
 			size[i].c += math.Abs(j * (j - 1) * y)
 		}
-		got := sumsAt(tau)
+		var got tauSums
+		got.set(tau)
 		for i := range want {
 			w := want[i]
 			w.ia, w.iia = float64(i)*w.a, float64(i*(i-1))*w.a

@@ -115,7 +115,8 @@ func PointPT(p, T float64) (Point, bool) {
 	if !inRange(v) || !inRange(T) {
 		return Point{Rho: nan(), T: nan()}, false
 	}
-	s := sumsAt(Tc / T)
+	var s tauSums
+	s.set(Tc / T)
 	rho, ok := solveRho(&s, p, T, 1/v, anyBranch)
 	if !ok {
 		return Point{Rho: nan(), T: nan()}, false
@@ -319,7 +320,7 @@ func satRho(T, psat float64) (rhoL, rhoV float64, st tauSums, ok bool) {
 	default:
 		xv = 'z'
 	}
-	st = sumsAt(Tc / T)
+	st.set(Tc / T)
 	rl, okl := solveRho(&st, psat, T, 1/vOf(xl, psat, T), liquid)
 	rv, okv := solveRho(&st, psat, T, 1/vOf(xv, psat, T), vapour)
 	switch {
