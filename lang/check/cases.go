@@ -39,7 +39,7 @@ func (c *checker) cases() {
 }
 
 func (c *checker) lowerCase(cd *ast.CaseDecl) *model.Case {
-	k := &model.Case{Name: cd.Name.Name, Span: span(cd.Name)}
+	k := &model.Case{Name: cd.Name.Name, Span: span(cd.Name), Decl: span(cd)}
 	if cd.Label != nil {
 		k.Label = cd.Label.Value
 	}
@@ -237,7 +237,7 @@ func (c *checker) sweeps() {
 }
 
 func (c *checker) lowerSweep(sd *ast.SweepDecl) *model.Sweep {
-	sw := &model.Sweep{Name: sd.Name.Name, Span: span(sd.Name), Case: -1}
+	sw := &model.Sweep{Name: sd.Name.Name, Span: span(sd.Name), Decl: span(sd), Case: -1}
 	if sd.Label != nil {
 		sw.Label = sd.Label.Value
 	}

@@ -13,6 +13,7 @@ type Case struct {
 	Name  string
 	Label string
 	Span  Span // the case's name where it is declared
+	Decl  Span // the whole case statement, block and all
 	Set   []Override
 	// Expects hold in this case only, besides the model's own.
 	Expects []*Expect
@@ -46,6 +47,7 @@ type Sweep struct {
 	Name  string
 	Label string
 	Span  Span // the sweep's name where it is declared
+	Decl  Span // the whole sweep statement
 	Case  int  // index into Model.Cases of the case it varies, or -1 for the model itself
 	// Vary is the value varied; its Given holds the unit the user wrote and the range's span,
 	// and takes each point's value in turn (see Point).

@@ -48,6 +48,9 @@ type Diagnostic struct {
 	// Undeclared, when set, is a stream the file names but never declares: a declaration
 	// "stream NAME" fixes it.
 	Undeclared string
+	// Case is the case the finding belongs to ("" for the file itself); its message then starts
+	// with "case NAME: ".
+	Case string
 }
 
 // Spec names one value a calc file could state: a property of a stream or a parameter of a unit.

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 )
 
 // Newton settings. A block converges when every scaled residual is below tolScaled; the scale
@@ -38,6 +39,9 @@ type newton struct {
 	solved  []bool
 	maxIter int
 	guess   func(v int) float64
+	// start, when set, gives an unknown's value in an earlier solution (Options.Start), tried
+	// when the first guesses do not already satisfy a block.
+	start func(v int) (float64, bool)
 	// buf and g are reused from block to block: most blocks are one equation, and allocating
 	// their work arrays each time was a good part of solving a long chain.
 	buf []float64
@@ -115,6 +119,9 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 		return worst, nil
 	}
 	norm, err := eval(r, false)
+	if n.start != nil && !(err == nil && norm <= tolScaled) && n.nonlinear(eqs) {
+		norm, err = n.tryStart(vars, x0, dx, scale, norm, err, eval, r)
+	}
 	if err != nil {
 		return &blockError{reason: "cannot evaluate " + sys.Eqs[eqs[0]].Label + " at the first guess", prop: err}
 	}
@@ -175,6 +182,48 @@ func (n *newton) solveBlock(eqs, vars []int) error {
 			return &blockError{reason: "no values satisfy these equations together", miss: norm}
 		}
 	}
+}
+
+// nonlinear reports whether a block has an equation through IF97 (one without an analytic
+// gradient): Newton's method solves the linear and bilinear balances in one step from any
+// start, so only such a block gains by starting nearer.
+func (n *newton) nonlinear(eqs []int) bool {
+	for _, e := range eqs {
+		if n.sys.Eqs[e].grad == nil {
+			return true
+		}
+	}
+	return false
+}
+
+// tryStart puts the block's unknowns at their values of an earlier solution and keeps them
+// there when the equations hold better than at the first guesses (a neighbour's value is exact
+// for a tee or a valve, the earlier solution nearer for the rest); it returns the block's norm
+// and error at the start kept. x0 and tmp are scratch; scale is the block's, set by eval.
+func (n *newton) tryStart(vars []int, x0, tmp, scale []float64, norm float64, err error, eval func([]float64, bool) (float64, error), r []float64) (float64, error) {
+	moved := false
+	for j, v := range vars {
+		x0[j] = n.x[v]
+		if w, ok := n.start(v); ok && w != n.x[v] {
+			n.x[v], moved = w, true
+		}
+	}
+	if !moved {
+		return norm, err
+	}
+	if err != nil { // the first guesses could not be evaluated: take the start whatever it gives
+		return eval(r, false)
+	}
+	kept := slices.Clone(scale)
+	if nn, e2 := eval(tmp, false); e2 == nil && nn < norm {
+		copy(r, tmp)
+		return nn, nil
+	}
+	copy(scale, kept)
+	for j, v := range vars {
+		n.x[v] = x0[j]
+	}
+	return norm, err
 }
 
 func b2i(b bool) int {

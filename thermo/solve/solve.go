@@ -21,6 +21,10 @@ type Options struct {
 	// Adjust, when set, runs after the balances are solved and before results are read from
 	// them (see Adjustment): the reconciliation of measurements hooks in here.
 	Adjust Adjust
+	// Start, when set, is the solution of a model of the same streams and units (a sweep's
+	// previous point): a block of equations its first guesses do not satisfy starts from
+	// Start's values instead when they satisfy it better.
+	Start *Result
 }
 
 // ProvKind says where a solved value came from.
@@ -311,6 +315,11 @@ func (s *solveRun) guess(v int) float64 {
 func (s *solveRun) solveBlocks() {
 	sys := s.b.sys
 	nt := &newton{ctx: s.ctx, sys: sys, x: s.x, solved: s.solved, maxIter: s.opt.MaxIter, guess: s.guess}
+	if w := s.opt.Start; w != nil && w.System != nil && len(w.X) == len(s.x) {
+		nt.start = func(v int) (float64, bool) {
+			return w.X[v], w.System.Vars[v].Name == sys.Vars[v].Name && finite(w.X[v])
+		}
+	}
 	defer func() { s.evals += nt.evals }()
 	var vars []int
 	for _, blk := range s.st.blocks {
