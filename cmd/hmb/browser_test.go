@@ -197,7 +197,7 @@ func checkInBrowser(t *testing.T, browser context.Context, dir, file, base strin
 		for _, o := range got.Overflow {
 			t.Errorf("%s: past the page width: %s", where, o)
 		}
-		if got.Figures != 4 || len(got.EmptyFigs) > 0 {
+		if got.Figures != 4+sweepsIn(t, file) || len(got.EmptyFigs) > 0 {
 			t.Errorf("%s: %d figures, %v not drawn", where, got.Figures, got.EmptyFigs)
 		}
 		if got.Broken > 0 {
@@ -263,3 +263,12 @@ func checkInBrowser(t *testing.T, browser context.Context, dir, file, base strin
 }
 
 func ptr[T any](v T) *T { return &v }
+
+// sweepsIn counts the sweeps of a calc file: the page draws a plot of each.
+func sweepsIn(t *testing.T, file string) int {
+	src, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return len(checkModel(context.Background(), file, src, nil).model.Sweeps)
+}

@@ -30,6 +30,8 @@ type fileResult struct {
 	passes  []passed     // the expectations that hold, for text output with -v
 	ambient float64      // K, the surroundings' temperature the entropy generation uses; 0 when there is no model
 	recon   *jsonRecon   // nil when nothing could be solved
+	cases   []jsonCase
+	sweeps  []jsonSweep
 }
 
 func (f *fileResult) errors() int {

@@ -31,6 +31,15 @@ const relTol = 1e-6
 type expectedFile struct {
 	Streams map[string]map[string]*float64 `json:"streams"`
 	Units   map[string]map[string]float64  `json:"units"`
+	// Cases holds each case's answers, worked as the base's; Sweeps each sweep's points.
+	Cases  map[string]expectedFile    `json:"cases"`
+	Sweeps map[string][]expectedPoint `json:"sweeps"`
+}
+
+// expectedPoint is a sweep point: the swept value and results by name ("SW flow"), SI.
+type expectedPoint struct {
+	Value   float64            `json:"value"`
+	Results map[string]float64 `json:"results"`
 }
 
 type expectedDoc struct {
@@ -100,11 +109,51 @@ func TestExamples(t *testing.T) {
 			}
 			compareStreams(t, fr, want)
 			compareUnits(t, fr, want)
+			compareCases(t, fr, want)
 		})
 	}
 	for k := range model.Kinds {
 		if !kinds[k] {
 			t.Errorf("no example uses a %s", k)
+		}
+	}
+}
+
+// compareCases holds every case and every sweep point to expected.json.
+func compareCases(t *testing.T, fr *fileResult, want expectedFile) {
+	t.Helper()
+	if len(fr.cases) != len(want.Cases) || len(fr.sweeps) != len(want.Sweeps) {
+		t.Errorf("%d cases and %d sweeps, expected.json answers %d and %d", len(fr.cases), len(fr.sweeps), len(want.Cases), len(want.Sweeps))
+	}
+	for _, c := range fr.cases {
+		w, ok := want.Cases[c.Name]
+		if !ok {
+			t.Errorf("case %s: no expected answer", c.Name)
+			continue
+		}
+		t.Run("case "+c.Name, func(t *testing.T) {
+			cf := &fileResult{streams: c.Streams, units: c.Units}
+			compareStreams(t, cf, w)
+			compareUnits(t, cf, w)
+		})
+	}
+	for _, sw := range fr.sweeps {
+		w := want.Sweeps[sw.Name]
+		if len(w) != len(sw.Points) {
+			t.Errorf("sweep %s: %d points, expected.json %d", sw.Name, len(sw.Points), len(w))
+			continue
+		}
+		for i, p := range sw.Points {
+			if p.Failed || !agree(float64(p.Value), w[i].Value, "m") {
+				t.Errorf("sweep %s point %d: value %v (failed %v), want %v", sw.Name, i, p.Value, p.Failed, w[i].Value)
+			}
+			for k, name := range sw.Results {
+				want, ok := w[i].Results[name]
+				key := map[string]string{"flow": "m", "T": "T", "duty": "Q"}[strings.Fields(name)[1]]
+				if ok && !agree(float64(p.Values[k]), want, key) {
+					t.Errorf("sweep %s point %d: %s = %.12g, want %.12g (python3-iapws, expected.py)", sw.Name, i, name, float64(p.Values[k]), want)
+				}
+			}
 		}
 	}
 }
@@ -227,7 +276,52 @@ func TestExpectedCurrent(t *testing.T) {
 		if len(f.Streams) != len(c.Streams) || len(f.Units) != len(c.Units) {
 			t.Errorf("%s: expected.json holds other streams or units than expected.py writes", name)
 		}
+		if !sameJSON(f.Cases, c.Cases, same) || !sameJSON(f.Sweeps, c.Sweeps, same) {
+			t.Errorf("%s: the cases or sweeps expected.py gives differ from expected.json: re-run python3 %s", name, expectedPy)
+		}
 	}
+}
+
+// sameJSON compares two values as JSON, numbers by same.
+func sameJSON(a, b any, same func(a, b float64) bool) bool {
+	var x, y any
+	ja, _ := json.Marshal(a)
+	jb, _ := json.Marshal(b)
+	if json.Unmarshal(ja, &x) != nil || json.Unmarshal(jb, &y) != nil {
+		return false
+	}
+	var eq func(x, y any) bool
+	eq = func(x, y any) bool {
+		switch x := x.(type) {
+		case map[string]any:
+			ym, ok := y.(map[string]any)
+			if !ok || len(x) != len(ym) {
+				return false
+			}
+			for k, v := range x {
+				if !eq(v, ym[k]) {
+					return false
+				}
+			}
+			return true
+		case []any:
+			ys, ok := y.([]any)
+			if !ok || len(x) != len(ys) {
+				return false
+			}
+			for i := range x {
+				if !eq(x[i], ys[i]) {
+					return false
+				}
+			}
+			return true
+		case float64:
+			yf, ok := y.(float64)
+			return ok && same(x, yf)
+		}
+		return x == y
+	}
+	return eq(x, y)
 }
 
 func deref(p *float64) any {

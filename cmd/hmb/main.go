@@ -3,7 +3,7 @@
 //	hmb check [--format text|json|sarif] [--si|--us] [--quiet] PATH...
 //	hmb fmt [-w] [--check] PATH...
 //	hmb props [--si|--us] [--json] NAME=VALUE NAME=VALUE
-//	hmb table | plot | report [options] FILE
+//	hmb table | plot | report [options] FILE   (--case NAME, --sweep NAME: a case, a sweep)
 //	hmb lsp
 //
 // hmb COMMAND --help prints a command's usage and options.
@@ -35,11 +35,13 @@ var commands = []command{
 	{"props", "[--si|--us] [--json] [--atm P | --elevation Z] NAME=VALUE NAME=VALUE",
 		[]string{"water/steam state from two properties, e.g. hmb props p=150psig x=1",
 			"NAME is any two of p T h s x; gauge and vacuum readings against --atm or --elevation"}},
-	{"table", "[--format md|csv|html] [--si|--us] [-o OUT] FILE",
-		[]string{"stream and unit tables of one solved calc file"}},
-	{"plot", "[--kind Ts|hs|ph|flowsheet] [--full-dome] [--values] [--si|--us] [-o out.svg] FILE",
+	{"table", "[--format md|csv|html] [--si|--us] [--case NAME | --sweep NAME [--result R]...] [-o OUT] FILE",
+		[]string{"stream and unit tables of one solved calc file, its cases side by side;",
+			"--case shows one case, --sweep a sweep's results against the swept value (md or csv)"}},
+	{"plot", "[--kind Ts|hs|ph|flowsheet] [--full-dome] [--values] [--si|--us] [--case NAME | --sweep NAME [--result R]...] [-o out.svg] FILE",
 		[]string{"property diagram (SVG) with the saturation dome, isobars, streams and units, or the",
-			"heat and material balance diagram (flowsheet): equipment symbols and tagged streams"}},
+			"heat and material balance diagram (flowsheet): equipment symbols and tagged streams;",
+			"--sweep draws a sweep's results against the swept value"}},
 	{"report", "[--si|--us] [-o out.html] FILE",
 		[]string{"one self-contained HTML page: caution, tables, diagrams, expectations, findings"}},
 	{"lsp", "",

@@ -94,6 +94,7 @@ type jsonDiag struct {
 	Message  string        `json:"message"`
 	Range    jsonRange     `json:"range"`
 	Related  []jsonRelated `json:"related,omitempty"`
+	Case     string        `json:"case,omitempty"` // the case it belongs to (see jsonCase)
 }
 
 type jsonFile struct {
@@ -110,6 +111,8 @@ type jsonFile struct {
 	// Totals are null when the file could not be read into a model.
 	Totals       *jsonTotals  `json:"totals"`
 	Expectations []jsonExpect `json:"expectations"`
+	Cases        []jsonCase   `json:"cases"`
+	Sweeps       []jsonSweep  `json:"sweeps"`
 }
 
 func toJSONFile(f *fileResult) jsonFile {
@@ -128,13 +131,30 @@ func toJSONFile(f *fileResult) jsonFile {
 		jf.Units = []jsonUnit{}
 	}
 	for _, d := range f.diags {
-		jd := jsonDiag{Severity: d.Severity.String(), Code: d.Code, Message: d.Message, Range: li.rng(d.Span)}
-		for _, r := range d.Related {
-			jd.Related = append(jd.Related, jsonRelated{Message: r.Message, Range: li.rng(r.Span)})
+		if d.Case == "" { // a case's findings are listed with the case
+			jf.Diagnostics = append(jf.Diagnostics, li.diag(d))
 		}
-		jf.Diagnostics = append(jf.Diagnostics, jd)
+	}
+	jf.Cases, jf.Sweeps = []jsonCase{}, f.sweeps
+	if jf.Sweeps == nil {
+		jf.Sweeps = []jsonSweep{}
+	}
+	for _, c := range f.cases {
+		c.Diagnostics = []jsonDiag{}
+		for _, d := range c.diags {
+			c.Diagnostics = append(c.Diagnostics, li.diag(d))
+		}
+		jf.Cases = append(jf.Cases, c)
 	}
 	return jf
+}
+
+func (li *lineIndex) diag(d model.Diagnostic) jsonDiag {
+	jd := jsonDiag{Severity: d.Severity.String(), Code: d.Code, Message: d.Message, Range: li.rng(d.Span), Case: d.Case}
+	for _, r := range d.Related {
+		jd.Related = append(jd.Related, jsonRelated{Message: r.Message, Range: li.rng(r.Span)})
+	}
+	return jd
 }
 
 func writeJSON(w io.Writer, files []*fileResult) error {

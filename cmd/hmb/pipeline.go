@@ -10,6 +10,7 @@ import (
 
 	"hmb/lang"
 	"hmb/lang/format"
+	"hmb/thermo/cases"
 	"hmb/thermo/model"
 	"hmb/thermo/reconcile"
 	"hmb/thermo/report"
@@ -133,6 +134,7 @@ type checked struct {
 	model *model.Model // nil when nothing could be lowered
 	res   *solve.Result
 	rec   *reconcile.Result
+	cases []*cases.Result // the file's cases, solved
 	diags []model.Diagnostic
 }
 
@@ -149,6 +151,10 @@ func checkModel(ctx context.Context, path string, src []byte, display *units.Sys
 	}
 	c.res, c.rec = reconcile.Solve(ctx, lr.Model, solve.Options{})
 	c.diags = append(c.diags, c.res.Diags...)
+	c.cases = cases.Solve(ctx, lr.Model, solve.Options{})
+	for _, k := range c.cases {
+		c.diags = append(c.diags, cases.Distinct(k.Diags, c.res.Diags)...) // the base says what it shares
+	}
 	slices.SortStableFunc(c.diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return c
 }
@@ -164,61 +170,8 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 		return fr
 	}
 	m := c.model
-	fr.streams = make([]jsonStream, 0, len(m.Streams))
-	fr.units = make([]jsonUnit, 0, len(m.Units))
-	for i, s := range m.Streams {
-		r := c.res.Streams[i]
-		val := func(name string) jsonNum {
-			v, _, _ := c.res.Value(m, model.Subject{Kind: model.StreamSubject, Index: i}, name)
-			return jsonNum(v)
-		}
-		js := jsonStream{Name: s.Name, Label: s.Label, M: jsonNum(r.M), P: nan, T: nan, H: nan, S: nan, X: nan,
-			Tsat: val("Tsat"), Superheat: val("superheat"), Subcooling: val("subcooling"), V: val("v"), Rho: val("rho"), VolFlow: val("vol_flow"),
-			Given: givenNames(s)}
-		if r.HasState {
-			st := r.State
-			js.P, js.T, js.H, js.S, js.Phase = jsonNum(st.P), jsonNum(st.T), jsonNum(st.H), jsonNum(st.S), st.Phase.String()
-			if !math.IsNaN(st.X) {
-				js.X = jsonNum(st.X)
-			}
-		}
-		u := func(name string) jsonNum { return jsonNum(c.rec.Stream(i, name)) }
-		js.U = jsonStreamU{M: u("flow"), P: u("p"), T: u("T"), H: u("h"), S: u("s"), X: u("x")}
-		fr.streams = append(fr.streams, js)
-	}
-	for i, u := range m.Units {
-		r := c.res.Units[i]
-		ru := func(name string) jsonNum { return jsonNum(c.rec.Unit(i, name)) }
-		val := func(name string) jsonNum {
-			v, _, _ := c.res.Value(m, model.Subject{Kind: model.UnitSubject, Index: i}, name)
-			return jsonNum(v)
-		}
-		ju := jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly,
-			Dp: val("dp"), DpHot: val("dp_hot"), DpCold: val("dp_cold"), Efficiency: val("efficiency"), Fuel: val("fuel"),
-			DTMin: val("dT_min"), LMTD: val("lmtd"), UA: val("UA"), Ports: map[string][]string{}}
-		for _, p := range u.Ports {
-			ju.Ports[p.Role] = append(ju.Ports[p.Role], m.Streams[p.Stream].Name)
-		}
-		ju.U = jsonUnitU{Q: ru("duty"), W: ru("power"), Sgen: ru("sgen")}
-		fr.units = append(fr.units, ju)
-	}
-	total := func(name string) jsonNum {
-		v, _, _ := c.res.Value(m, model.Subject{Kind: model.TotalSubject}, name)
-		return jsonNum(v)
-	}
-	fr.totals = &jsonTotals{PowerOut: total("power_out"), PowerIn: total("power_in"), NetPower: total("net_power"),
-		HeatIn: total("heat_in"), HeatOut: total("heat_out"), Efficiency: total("efficiency"), HeatRate: total("heat_rate")}
-	for i, ex := range m.Expects {
-		je := jsonExpect{Subject: subjectName(m, ex), Property: ex.Prop, Operator: ex.Op.String(), Value: jsonNum(ex.Value), Tolerance: nan, Solved: nan}
-		if i < len(c.res.Expects) {
-			er := c.res.Expects[i]
-			je.Tolerance, je.Solved, je.Passed = jsonNum(er.Tol), jsonNum(er.Solved), er.Passed
-			if er.Passed {
-				fr.passes = append(fr.passes, passed{span: ex.Span, text: er.Text})
-			}
-		}
-		fr.expects = append(fr.expects, je)
-	}
+	p := solvedJSON(m, c.res, c.rec)
+	fr.streams, fr.units, fr.totals, fr.expects, fr.passes = p.streams, p.units, p.totals, p.expects, p.passes
 	fr.recon = reconJSON(c.rec)
 	fr.table = streamTable(m, c.res, c.rec)
 	if len(c.rec.Measurements) > 0 {
@@ -230,6 +183,7 @@ func checkSource(path string, src []byte, display *units.System) *fileResult {
 	if t := report.TotalTable(m, c.res); t != nil {
 		fr.table += totalsLine(m, c.res)
 	}
+	checkCases(fr, c)
 	return fr
 }
 
@@ -244,6 +198,76 @@ func totalsLine(m *model.Model, r *solve.Result) string {
 		}
 	}
 	return "  totals: " + strings.Join(parts, ", ") + "\n"
+}
+
+// solvedParts is what JSON reports of a solved model: the base's or a case's.
+type solvedParts struct {
+	streams []jsonStream
+	units   []jsonUnit
+	totals  *jsonTotals
+	expects []jsonExpect
+	passes  []passed
+}
+
+// solvedJSON is the solved streams, units, totals and expectations of a model, for JSON.
+func solvedJSON(m *model.Model, res *solve.Result, rec *reconcile.Result) solvedParts {
+	var p solvedParts
+	p.streams = make([]jsonStream, 0, len(m.Streams))
+	p.units = make([]jsonUnit, 0, len(m.Units))
+	for i, s := range m.Streams {
+		r := res.Streams[i]
+		val := func(name string) jsonNum {
+			v, _, _ := res.Value(m, model.Subject{Kind: model.StreamSubject, Index: i}, name)
+			return jsonNum(v)
+		}
+		js := jsonStream{Name: s.Name, Label: s.Label, M: jsonNum(r.M), P: nan, T: nan, H: nan, S: nan, X: nan,
+			Tsat: val("Tsat"), Superheat: val("superheat"), Subcooling: val("subcooling"), V: val("v"), Rho: val("rho"), VolFlow: val("vol_flow"),
+			Given: givenNames(s)}
+		if r.HasState {
+			st := r.State
+			js.P, js.T, js.H, js.S, js.Phase = jsonNum(st.P), jsonNum(st.T), jsonNum(st.H), jsonNum(st.S), st.Phase.String()
+			if !math.IsNaN(st.X) {
+				js.X = jsonNum(st.X)
+			}
+		}
+		u := func(name string) jsonNum { return jsonNum(rec.Stream(i, name)) }
+		js.U = jsonStreamU{M: u("flow"), P: u("p"), T: u("T"), H: u("h"), S: u("s"), X: u("x")}
+		p.streams = append(p.streams, js)
+	}
+	for i, u := range m.Units {
+		r := res.Units[i]
+		ru := func(name string) jsonNum { return jsonNum(rec.Unit(i, name)) }
+		val := func(name string) jsonNum {
+			v, _, _ := res.Value(m, model.Subject{Kind: model.UnitSubject, Index: i}, name)
+			return jsonNum(v)
+		}
+		ju := jsonUnit{Name: u.Name, Kind: u.Kind.Name, Q: jsonNum(r.Q), W: jsonNum(r.W), Sgen: jsonNum(r.Sgen), SgenFluidOnly: r.SgenFluidOnly,
+			Dp: val("dp"), DpHot: val("dp_hot"), DpCold: val("dp_cold"), Efficiency: val("efficiency"), Fuel: val("fuel"),
+			DTMin: val("dT_min"), LMTD: val("lmtd"), UA: val("UA"), Ports: map[string][]string{}}
+		for _, p := range u.Ports {
+			ju.Ports[p.Role] = append(ju.Ports[p.Role], m.Streams[p.Stream].Name)
+		}
+		ju.U = jsonUnitU{Q: ru("duty"), W: ru("power"), Sgen: ru("sgen")}
+		p.units = append(p.units, ju)
+	}
+	total := func(name string) jsonNum {
+		v, _, _ := res.Value(m, model.Subject{Kind: model.TotalSubject}, name)
+		return jsonNum(v)
+	}
+	p.totals = &jsonTotals{PowerOut: total("power_out"), PowerIn: total("power_in"), NetPower: total("net_power"),
+		HeatIn: total("heat_in"), HeatOut: total("heat_out"), Efficiency: total("efficiency"), HeatRate: total("heat_rate")}
+	for i, ex := range m.Expects {
+		je := jsonExpect{Subject: subjectName(m, ex), Property: ex.Prop, Operator: ex.Op.String(), Value: jsonNum(ex.Value), Tolerance: nan, Solved: nan}
+		if i < len(res.Expects) {
+			er := res.Expects[i]
+			je.Tolerance, je.Solved, je.Passed = jsonNum(er.Tol), jsonNum(er.Solved), er.Passed
+			if er.Passed {
+				p.passes = append(p.passes, passed{span: ex.Span, text: er.Text})
+			}
+		}
+		p.expects = append(p.expects, je)
+	}
+	return p
 }
 
 func reconJSON(r *reconcile.Result) *jsonRecon {
@@ -396,5 +420,5 @@ func formatSource(path string, src []byte) ([]byte, error) { return format.Sourc
 
 // allCodes lists every diagnostic code hmb reports, in code order.
 func allCodes() []model.CodeInfo {
-	return slices.Concat(lang.Codes, solve.Codes, reconcile.Codes)
+	return slices.Concat(lang.Codes, solve.Codes, reconcile.Codes, cases.Codes)
 }

@@ -26,6 +26,10 @@ func runReport(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
+	in.Sweeps = sweepsOf(context.Background(), in.Model)
+	for _, r := range in.Sweeps {
+		in.Diags = append(in.Diags, r.Diags...)
+	}
 	var buf bytes.Buffer
 	if err := report.WritePage(&buf, in, report.PageOptions{Version: version}); err != nil {
 		return &exitError{code: 1, msg: err.Error()}
@@ -59,7 +63,7 @@ func loadReportInput(fset *flag.FlagSet, sys systemFlags, stderr io.Writer) (*re
 	}
 	lines := source.New(path, src)
 	where := func(off int) string { return lines.Position(off).String() }
-	return &report.Input{Path: path, Src: src, Model: c.model, Result: c.res, Diags: c.diags, Where: where}, nil
+	return &report.Input{Path: path, Src: src, Model: c.model, Result: c.res, Diags: c.diags, Where: where, Cases: c.cases}, nil
 }
 
 // emit writes output to stdout, or to path atomically.

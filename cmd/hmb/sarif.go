@@ -57,6 +57,8 @@ type sarifResult struct {
 	Message          sarifText       `json:"message"`
 	Locations        []sarifLocation `json:"locations"`
 	RelatedLocations []sarifLocation `json:"relatedLocations,omitempty"`
+	// Properties carry the case a finding belongs to, {"case": NAME} (a SARIF property bag).
+	Properties map[string]string `json:"properties,omitempty"`
 }
 
 type sarifLocation struct {
@@ -134,6 +136,9 @@ func writeSARIF(w io.Writer, files []*fileResult) error {
 		for _, d := range f.diags {
 			res := sarifResult{RuleID: d.Code, RuleIndex: index[d.Code], Level: sarifLevel(d.Severity),
 				Message: sarifText{d.Message}, Locations: []sarifLocation{{PhysicalLocation: loc(d.Span)}}}
+			if d.Case != "" {
+				res.Properties = map[string]string{"case": d.Case}
+			}
 			for i, r := range d.Related {
 				id := i + 1
 				res.RelatedLocations = append(res.RelatedLocations, sarifLocation{ID: &id,

@@ -5,6 +5,7 @@ import (
 	"flag"
 	"io"
 
+	"hmb/thermo/cases"
 	"hmb/thermo/report"
 )
 
@@ -15,8 +16,15 @@ func runTable(args []string, stdout, stderr io.Writer) error {
 	format := fset.String("format", "md", "output format: md, csv or html")
 	out := fset.String("o", "", "write to this file instead of standard output")
 	sys := addSystemFlags(fset)
+	cf := addCaseFlags(fset, false)
 	if err := parseFlags(fset, args, stdout); err != nil {
 		return err
+	}
+	if err := cf.check(); err != nil {
+		return err
+	}
+	if *cf.sweep != "" {
+		return sweepTable(fset, sys, cf, *format, *out, stdout, stderr)
 	}
 	write := map[string]func(io.Writer, *report.Input) error{
 		"md": report.WriteMarkdown, "csv": report.WriteCSV, "html": report.WriteHTML,
@@ -28,6 +36,11 @@ func runTable(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
+	if *cf.kase != "" {
+		if in, err = caseInput(in, *cf.kase); err != nil {
+			return err
+		}
+	}
 	var buf bytes.Buffer
 	if err := write(&buf, in); err != nil {
 		return &exitError{code: 1, msg: err.Error()}
@@ -36,4 +49,25 @@ func runTable(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	return findingsExit(in)
+}
+
+// sweepTable prints a sweep's results against the swept value.
+func sweepTable(fset *flag.FlagSet, sys systemFlags, cf caseFlags, format, out string, stdout, stderr io.Writer) error {
+	write := map[string]func(io.Writer, *cases.SweepResult) error{"md": report.WriteSweepMarkdown, "csv": report.WriteSweepCSV}[format]
+	if write == nil {
+		return usageErr("a sweep's table is md or csv, not %q", format)
+	}
+	in, err := loadReportInput(fset, sys, stderr)
+	if err != nil {
+		return err
+	}
+	r, err := sweepOf(in, *cf.sweep, *cf.results)
+	if err != nil {
+		return err
+	}
+	var buf bytes.Buffer
+	if err := write(&buf, r); err != nil {
+		return &exitError{code: 1, msg: err.Error()}
+	}
+	return emit(out, buf.Bytes(), stdout)
 }

@@ -424,6 +424,48 @@ def solve3(rows):
             m[i][k] = rows[i][3]
         out.append(det(m) / d)
     return out
+def dairy_plant(fw_m=6.0, ts_m=4.5, eta=0.78, ms_T=C(400), power=None):
+    """Boiler, splitter, back-pressure turbine, letdown valve, header mixer, attemperator."""
+    fw = pt(42 * BAR, C(105), fw_m)
+    ms = pt(40 * BAR, ms_T, fw_m)
+    if power is not None:  # the turbine's flow follows from its power: W = m (h_in - h_out)
+        per_kg, _ = turbine(pt(ms.p, ms.T, 1.0), 10 * BAR, eta)
+        ts_m = power / (ms.h - per_kg.h)
+    ts = pt(ms.p, ms.T, ts_m)
+    by = pt(ms.p, ms.T, fw_m - ts_m)
+    ex, t1 = turbine(ts, 10 * BAR, eta)
+    ls = ph(10 * BAR, by.h, by.m)  # a valve conserves h
+    hd = ph(10 * BAR, (ex.m * ex.h + ls.m * ls.h) / fw_m, fw_m)  # both inlets at 10 bar
+    sw = pt(30 * BAR, C(105))
+    ps = pt(hd.p, C(200))  # the attemperator's outlet is at its steam inlet's pressure
+    sw.m = hd.m * (hd.h - ps.h) / (ps.h - sw.h)
+    ps.m = hd.m + sw.m
+    streams = {"FW": fw, "MS": ms, "TS": ts, "BY": by, "EX": ex, "LS": ls, "HD": hd, "SW": sw, "PS": ps}
+    units = {
+        "B1": {"Q": fw.m * (ms.h - fw.h), "S_gen": heated_sgen(fw, ms)},
+        "SP": {"S_gen": sflow([ts, by], [ms])},
+        "T1": {"W": t1["W"], "S_gen": t1["S_gen"]},
+        "PRV": {"S_gen": sflow([ls], [by])},
+        "HM": {"S_gen": sflow([hd], [ex, ls])},
+        "DSH": {"S_gen": sflow([ps], [hd, sw])},
+    }
+    return streams, units
+
+
+def dairy_loads():
+    """The base, its three cases and the points of its sweep of the boiler's load."""
+    streams, units = dairy_plant()
+    cases = {}
+    for name, args in [("low", dict(fw_m=4.0, ts_m=3.0, eta=0.72)), ("dispatch", dict(power=600 * KW)), ("fouled", dict(ms_T=C(370)))]:
+        cs, cu = dairy_plant(**args)
+        cases[name] = {"streams": {n: s.json() for n, s in cs.items()}, "units": cu}
+    points = []
+    for k in range(7):  # FW flow from 5 kg/s to 8 kg/s step 0.5 kg/s
+        m = 5.0 + 0.5 * k
+        ps_, pu = dairy_plant(fw_m=m)
+        points.append({"value": m, "results": {
+            "SW flow": ps_["SW"].m, "PS flow": ps_["PS"].m, "HD T": ps_["HD"].T, "B1 duty": pu["B1"]["Q"]}})
+    return streams, units, None, {"cases": cases, "sweeps": {"load": points}}
 
 
 EXAMPLES = {
@@ -442,6 +484,7 @@ EXAMPLES = {
     "district_heat_blend.hmb": district_heat_blend,
     "steam_injection.hmb": steam_injection,
     "metered_turbine.hmb": metered_turbine,
+    "dairy_loads.hmb": dairy_loads,
 }
 
 
@@ -458,11 +501,13 @@ def main():
             "streams": {n: s.json() for n, s in streams.items()},
             "units": units,
         }
-        if rec:  # a metered plant: its readings' reconciliation
+        if rec and rec[0] is not None:  # a metered plant: its readings' reconciliation
             files[name]["reconciliation"] = rec[0]
+        if len(rec) > 1:  # cases and sweeps, each worked as the base is
+            files[name].update(rec[1])
     doc = {
         "generator": "testdata/examples/expected.py, python3-iapws %s" % iapws.__version__,
-        "units": "SI base: m kg/s, p Pa, T K, h J/kg, s J/(kg K), x fraction (null single phase), Q and W in W, S_gen in W/K",
+        "units": "SI base: m kg/s, p Pa, T K, h J/kg, s J/(kg K), x fraction (null single phase), Q and W in W, S_gen in W/K; a sweep's value and results in the same",
         "files": files,
     }
     text = json.dumps(doc, indent=1, sort_keys=True) + "\n"

@@ -1,6 +1,7 @@
 #!/bin/sh
 # render.sh regenerates the PNG renders of the example diagrams kept beside this script for
-# review: one PNG per example and diagram kind, named EXAMPLE.KIND.png.
+# review: one PNG per example and diagram kind, named EXAMPLE.KIND.png, and one per sweep of an
+# example, EXAMPLE.sweep-NAME.png.
 #
 #   testdata/report/render.sh               # the Ts diagram and the flowsheet of every example
 #   KINDS="Ts hs ph" testdata/report/render.sh
@@ -38,6 +39,19 @@ for f in "$root"/testdata/examples/*.hmb; do
 		part="$here/.$name.$k.png.tmp"
 		rsvg-convert --background-color=white -o "$part" "$tmp/$name.$k.svg"
 		mv -f "$part" "$here/$name.$k.png"
+		n=$((n + 1))
+	done
+	# Each sweep of the example, drawn against its swept value.
+	for sw in $(sed -n 's/^sweep \([A-Za-z_][A-Za-z0-9_-]*\).*/\1/p' "$f"); do
+		status=0
+		"$tmp/hmb" plot --sweep "$sw" -o "$tmp/$name.sweep-$sw.svg" "$f" || status=$?
+		if [ "$status" -gt 1 ] || [ ! -s "$tmp/$name.sweep-$sw.svg" ]; then
+			echo "render.sh: hmb plot --sweep $sw $f failed (exit $status)" >&2
+			exit 1
+		fi
+		part="$here/.$name.sweep-$sw.png.tmp"
+		rsvg-convert --background-color=white -o "$part" "$tmp/$name.sweep-$sw.svg"
+		mv -f "$part" "$here/$name.sweep-$sw.png"
 		n=$((n + 1))
 	done
 done

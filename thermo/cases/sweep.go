@@ -169,9 +169,10 @@ func (r *SweepResult) failures() (model.Diagnostic, bool) {
 			more = append(more, r.Number(r.Points[i].Value))
 		}
 		if len(failed) > 6 {
-			more = append(more, fmt.Sprintf("and %d more", len(failed)-6))
+			more[len(more)-1] += fmt.Sprintf(" and %d more points", len(failed)-6)
 		}
-		msg += "; also at " + strings.Join(more, ", ")
+		_, u := r.Axis()
+		msg += "; also at " + strings.Join(more, ", ") + " " + u.Symbol()
 	}
 	return warnf(CodePointFailed, sw.Span, "%s", msg), true
 }

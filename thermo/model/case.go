@@ -2,6 +2,7 @@ package model
 
 import (
 	"math"
+	"slices"
 
 	"hmb/thermo/units"
 )
@@ -81,10 +82,20 @@ func (s *Sweep) Point(v float64) Override {
 // WithCase is the model with c's overrides applied and c's expectations added: a shallow copy
 // that shares every stream and unit the case does not change, so that the base is left as it
 // was and the copy costs little. The copy has no cases or sweeps of its own.
+//
+// The base's expectations hold in the case too (a limit holds at every load), except those on a
+// result the case states an expectation of its own on: the case's replace them (a design
+// point's shaft power is not the minimum load's).
 func (m *Model) WithCase(c *Case) *Model {
 	out := m.With(c.Set...)
 	if len(c.Expects) > 0 {
-		out.Expects = append(append(make([]*Expect, 0, len(m.Expects)+len(c.Expects)), m.Expects...), c.Expects...)
+		out.Expects = make([]*Expect, 0, len(m.Expects)+len(c.Expects))
+		for _, e := range m.Expects {
+			if !slices.ContainsFunc(c.Expects, func(x *Expect) bool { return x.Subject() == e.Subject() && x.Prop == e.Prop }) {
+				out.Expects = append(out.Expects, e)
+			}
+		}
+		out.Expects = append(out.Expects, c.Expects...)
 	}
 	return out
 }

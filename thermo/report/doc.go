@@ -8,6 +8,7 @@
 package report
 
 import (
+	"hmb/thermo/cases"
 	"hmb/thermo/model"
 	"hmb/thermo/solve"
 )
@@ -19,6 +20,8 @@ type Input struct {
 	Model  *model.Model
 	Result *solve.Result // nil when the file could not be solved
 	Diags  []model.Diagnostic
+	Cases  []*cases.Result      // the file's cases, solved; tables and the page put them side by side
+	Sweeps []*cases.SweepResult // the file's sweeps, solved; the page shows each as a table and a plot
 	// Where writes the place of a byte offset of Src as the report prints it: the caller's line
 	// index, "12:5" (1-based line, column in code points) from the notation's. nil prints the
 	// byte offset.

@@ -62,7 +62,7 @@ func Expectations(in *Input) []ExpectResult {
 			er.Verdict, er.Reason = NotChecked, "the file was not solved"
 		}
 		for _, d := range in.Diags {
-			if d.Span != ex.Span {
+			if d.Span != ex.Span || d.Case != "" { // a case's verdicts are the case's (CaseTables)
 				continue
 			}
 			switch d.Code {
@@ -168,6 +168,7 @@ func WritePage(w io.Writer, in *Input, opt PageOptions) error {
 	for _, k := range kinds {
 		v.Diagrams = append(v.Diagrams, figure(in, PlotOptions{Kind: k, ID: "fig-" + strings.ToLower(k.String())}))
 	}
+	v.Diagrams = append(v.Diagrams, sweepFigures(in)...)
 	for _, d := range in.Diags {
 		f := findingView{Where: in.where(d.Span), Severity: d.Severity.String(), Code: d.Code, Message: d.Message}
 		for _, r := range d.Related {
@@ -335,7 +336,7 @@ func summary(in *Input) ([]summaryItem, []expectView) {
 // values marked, every value titled with where it came from.
 func tableViews(in *Input) []tableView {
 	var out []tableView
-	for _, t := range Tables(in.Model, in.Result) {
+	for _, t := range append(Tables(in.Model, in.Result), studyTables(in)...) {
 		if reconciliationTable(t) {
 			continue // a section of its own
 		}
@@ -343,6 +344,9 @@ func tableViews(in *Input) []tableView {
 		v.Note = Notes(t)
 		if t.Name == "totals" {
 			v.Heading = "Plant totals"
+		}
+		if h := caseHeading(t.Name); h != "" {
+			v.Heading, v.Note = h, caseNote(t.Name)
 		}
 		out = append(out, v)
 	}

@@ -70,6 +70,7 @@ func WriteMarkdown(w io.Writer, in *Input) error {
 			fmt.Fprintf(bw, "\n%s\n", n)
 		}
 	}
+	writeCasesMD(bw, in)
 	return bw.Flush()
 }
 
@@ -132,7 +133,7 @@ func WriteCSV(w io.Writer, in *Input) error {
 		return fmt.Errorf("nothing to tabulate: the file could not be read into a model")
 	}
 	bw := bufio.NewWriter(w)
-	for k, t := range append(Tables(in.Model, in.Result), basisTable(in.Model)) {
+	for k, t := range append(append(Tables(in.Model, in.Result), basisTable(in.Model)), CaseTables(in)...) {
 		if k > 0 {
 			bw.WriteString("\n")
 		}
