@@ -12,9 +12,9 @@ import (
 type Variable struct {
 	Name   string     // as a message names it: "S3 flow", "S3 p", "H1 duty"
 	Stream int        // index into Model.Streams, or -1
-	Prop   model.Prop // Flow, P or H for a stream unknown
 	Unit   int        // index into Model.Units, or -1
 	Param  string     // parameter name for a unit unknown
+	Prop   model.Prop // Flow, P or H for a stream unknown
 	Dim    units.Dim  // for messages
 	Delta  bool       // shown as a difference (pressure drop)
 	typ    float64    // typical magnitude: finite-difference steps and first guesses
@@ -39,19 +39,25 @@ const (
 
 // Equation is one scalar relation lhs(x) = rhs(x). Its residual is lhs - rhs in SI units of Dim.
 // Splitting the two sides lets a balance that does not close say "in 25.31, out 25.10".
+//
+// The one-byte fields sit together: a large plant has hundreds of thousands of equations.
 type Equation struct {
-	Label  string // "energy balance of mixer DA", "given S3 T"
-	Kind   EqKind
-	Unit   int        // index into Model.Units, or -1
-	Stream int        // index into Model.Streams for a stream given, or -1
-	Prop   model.Prop // the property of a stream given
-	Param  string     // the parameter of a unit given
-	Given  *model.Given
-	Span   model.Span
-	Dim    units.Dim // dimension of lhs and rhs
-	LHS    string    // names of the two sides for a closure message ("in", "out")
-	RHS    string
-	Vars   []int // unknowns the equation touches, in the order the matching prefers them
+	Label string // "energy balance of mixer DA", "given S3 T"
+	Kind  EqKind
+	Prop  model.Prop // the property of a stream given
+	Dim   units.Dim  // dimension of lhs and rhs
+	// quality marks an equation in the (extended) quality: left over, it closes when the two
+	// sides differ by at most the relative tolerance in x itself (relTol of the latent heat in
+	// h), not relative to a quality that may be zero.
+	quality bool
+	Unit    int    // index into Model.Units, or -1
+	Stream  int    // index into Model.Streams for a stream given, or -1
+	Param   string // the parameter of a unit given
+	Given   *model.Given
+	Span    model.Span
+	LHS     string // names of the two sides for a closure message ("in", "out")
+	RHS     string
+	Vars    []int // unknowns the equation touches, in the order the matching prefers them
 
 	// lin, when set, is the equation in linear form, in place of eval, grad and direct: each
 	// side sums lin[i].c x[Vars[i]] over its terms, plus lc or rc. Givens of m, p and h, mass
@@ -67,10 +73,6 @@ type Equation struct {
 	grad   func(x []float64, g []float64) // d(lhs-rhs)/d(Vars[i]); nil: finite differences
 	direct func(x []float64, v int) (float64, error)
 	floor  float64 // scale below which the residual is not scaled further
-	// quality marks an equation in the (extended) quality: left over, it closes when the two
-	// sides differ by at most the relative tolerance in x itself (relTol of the latent heat in
-	// h), not relative to a quality that may be zero.
-	quality bool
 }
 
 // linTerm is one term of a linear equation: coefficient c on the left side, or on the right.
