@@ -1,6 +1,7 @@
 package lang
 
 import (
+	"slices"
 	"strings"
 
 	"hmb/lang/ast"
@@ -108,6 +109,14 @@ func (e siteEntry) afterNumber() bool {
 func (e siteEntry) inBlock(site Site, lbrace int) Site {
 	for _, s := range e.r.File.Stmts {
 		switch s := s.(type) {
+		case *ast.CaseDecl:
+			if s.Block != nil && s.Block.Lbrace == lbrace {
+				return e.inCase(site)
+			}
+		case *ast.SweepDecl:
+			if s.Block != nil && s.Block.Lbrace == lbrace {
+				return e.inSweep(site)
+			}
 		case *ast.StreamDecl:
 			if s.Block == nil || s.Block.Lbrace != lbrace {
 				continue
@@ -149,6 +158,132 @@ func (e siteEntry) inBlock(site Site, lbrace int) Site {
 			return site
 		}
 	}
+	return site
+}
+
+// inCase: a case's entries name the base's streams and units, then a property or parameter of
+// it, then its value (or free); or they are expectations.
+func (e siteEntry) inCase(site Site) Site {
+	switch {
+	case len(e.toks) == 0:
+		site.Kinds, site.Words = SiteStream|SiteUnit|SiteWord, []string{"expect"}
+		return site
+	case e.text(0) == "expect":
+		return e.expect(site)
+	}
+	return e.value(site, []string{check.FreeWord})
+}
+
+// value completes "NAME PROPERTY VALUE" of a case or a sweep: the property or parameter of the
+// stream or unit named, then words (after the property) or a spelling of its dimension.
+func (e siteEntry) value(site Site, words []string) Site {
+	var kind *model.Kind
+	isUnit := false
+	if e.r.Info != nil {
+		if o := e.r.Info.Objects[e.text(0)]; o != nil && o.IsUnit {
+			kind, isUnit = o.Kind, true
+		}
+	}
+	if isUnit && kind == nil {
+		return site // a unit of unknown kind
+	}
+	site.Kind = kind
+	dim, known := units.Dim(0), false
+	var paramWords []string
+	if len(e.toks) >= 2 {
+		if isUnit {
+			if p := kind.Param(e.text(1)); p != nil {
+				dim, known, paramWords = p.Dim, true, p.Words
+			}
+		} else if r := model.StreamResult(e.text(1)); r != nil && e.text(1) != "v" {
+			dim, known = r.Dim, true
+		}
+	}
+	switch {
+	case len(e.toks) == 1 && isUnit:
+		site.Kinds = SiteParam
+	case len(e.toks) == 1:
+		site.Kinds = SiteProp
+	case len(e.toks) == 2 && known:
+		site.Kinds, site.Words = SiteWord, append(slices.Clone(words), paramWords...)
+	case e.afterNumber() && known:
+		site.Kinds, site.Dim = SiteSpelling, dim
+	}
+	return site
+}
+
+// inSweep: a sweep's range ("NAME PROPERTY from A to B step C"), show list and case.
+func (e siteEntry) inSweep(site Site) Site {
+	if len(e.toks) == 0 {
+		site.Kinds, site.Words = SiteStream|SiteUnit|SiteWord, []string{"show", "case"}
+		return site
+	}
+	last := e.toks[len(e.toks)-1]
+	switch first := e.text(0); {
+	case first == "case":
+		if len(e.toks) == 1 && e.r.Model != nil {
+			site.Kinds = SiteWord
+			for _, c := range e.r.Model.Cases {
+				site.Words = append(site.Words, c.Name)
+			}
+		}
+		return site
+	case first == "show":
+		// show A r, B r: a name after show or a comma, then one of its results.
+		if last.Kind == token.Comma || len(e.toks) == 1 {
+			site.Kinds = SiteStream | SiteUnit
+			return site
+		}
+		if e.toks[len(e.toks)-2].Kind == token.Comma || len(e.toks) == 2 {
+			return e.resultsOf(site, e.text(len(e.toks)-1))
+		}
+		return site
+	case len(e.toks) <= 2:
+		return e.value(site, []string{"from"})
+	}
+	// After the property: from A [unit] to B [unit] step|count C [unit].
+	said := func(w string) bool {
+		for i := range e.toks {
+			if e.text(i) == w {
+				return true
+			}
+		}
+		return false
+	}
+	var next []string
+	switch {
+	case !said("to"):
+		next = []string{"to"}
+	case !said("step") && !said("count"):
+		next = []string{"step", "count"}
+	}
+	switch w := e.text(len(e.toks) - 1); {
+	case e.afterNumber() && e.text(len(e.toks)-2) == "count":
+	case e.afterNumber():
+		site = e.value(site, nil) // the number's unit, or the next keyword
+		if next != nil {
+			site.Kinds, site.Words = site.Kinds|SiteWord, next
+		}
+	case w == "from" || w == "to" || w == "step" || w == "count":
+		// a number comes next
+	case (last.Kind == token.Ident || last.Kind == token.Word) && next != nil:
+		site.Kinds, site.Words = SiteWord, next
+	}
+	return site
+}
+
+// resultsOf offers the results of the stream or unit named.
+func (e siteEntry) resultsOf(site Site, name string) Site {
+	results := model.StreamResults
+	if e.r.Info != nil {
+		if o := e.r.Info.Objects[name]; o != nil && o.IsUnit {
+			if o.Kind == nil {
+				return site
+			}
+			results, site.Kind = o.Kind.Results, o.Kind
+		}
+	}
+	site.Kinds, site.Results = SiteResult, results
 	return site
 }
 
@@ -217,6 +352,9 @@ func (e siteEntry) expect(site Site) Site {
 // Keyword is one keyword of the notation with one line of help.
 type Keyword struct {
 	Name, Doc string
+	// Inner marks a word of the inside of a statement (within, fluid, the words of cases and
+	// sweeps), which starts no statement.
+	Inner bool
 }
 
 // keywordDocs is the help on each keyword; every setting the checker knows has one
@@ -236,6 +374,14 @@ var keywordDocs = map[string]string{
 	"prepared_by": "setting (report title block): who prepared the calc",
 	"checked_by":  "setting (report title block): who checked the calc",
 	"date":        "setting (report title block): the date of this revision",
+	"case":        "a case of the file: case NAME \"label\" { NAME PROPERTY VALUE; NAME PROPERTY free; expect ... }, the base with values replaced, added or freed",
+	"sweep":       "a sweep: sweep NAME \"label\" { NAME PROPERTY from A to B step C (or count N); show NAME RESULT, ...; case NAME }",
+	"free":        "in a case, removes the base's value: FW T free (the balances then find it)",
+	"from":        "the first value of a sweep's range: FW flow from 4 kg/s to 8 kg/s step 0.5 kg/s",
+	"to":          "the last value of a sweep's range",
+	"step":        "the step of a sweep's range, a difference (step 10 K, step 5 psi), from the first value towards the last",
+	"count":       "the number of points of a sweep's range, both ends included: count 21",
+	"show":        "the results a sweep's table and plot show: show MS T, T1 power",
 	"within":      "the tolerance of an expectation: expect S1 T = 300 C within 2 C",
 	"fluid":       "the stream's fluid (water, liquid or steam: IAPWS-IF97)",
 }
@@ -250,10 +396,14 @@ func init() {
 // Keywords lists the notation's keywords with their help, in completion order: the statements,
 // the settings, then the words inside statements.
 func Keywords() []Keyword {
-	names := append(append([]string{"stream", "expect"}, check.Settings...), "within", "fluid")
-	out := make([]Keyword, len(names))
-	for i, n := range names {
-		out[i] = Keyword{Name: n, Doc: keywordDocs[n]}
+	names := append([]string{"stream", "expect", "case", "sweep"}, check.Settings...)
+	inner := []string{"within", "fluid", "free", "from", "to", "step", "count", "show"}
+	out := make([]Keyword, 0, len(names)+len(inner))
+	for _, n := range names {
+		out = append(out, Keyword{Name: n, Doc: keywordDocs[n]})
+	}
+	for _, n := range inner {
+		out = append(out, Keyword{Name: n, Doc: keywordDocs[n], Inner: true})
 	}
 	return out
 }

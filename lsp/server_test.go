@@ -304,7 +304,7 @@ func TestCompletion(t *testing.T) {
 		pos  protocol.Position
 		want string
 	}{
-		{"top level", protocol.Position{Line: 2, Character: 0}, "stream expect title display atmosphere elevation tolerance ambient project document revision prepared_by checked_by date display_flow display_vol_flow display_pressure display_temperature display_enthalpy display_entropy display_volume display_density display_power display_duty display_heat_rate boiler cooler deaerator desuperheater exchanger flash heater mixer pump splitter turbine valve"},
+		{"top level", protocol.Position{Line: 2, Character: 0}, "stream expect case sweep title display atmosphere elevation tolerance ambient project document revision prepared_by checked_by date display_flow display_vol_flow display_pressure display_temperature display_enthalpy display_entropy display_volume display_density display_power display_duty display_heat_rate boiler cooler deaerator desuperheater exchanger flash heater mixer pump splitter turbine valve"},
 		{"stream after role", at(t, src, "in S2", 5), "S1 S2 S3"},
 		{"role or param", at(t, src, "in S2", 0), "in out dp"},
 		{"pressure-drop spelling", at(t, src, "dp 3 ", 5), "MPa MPa(a) MPa(g) MPaa MPag Pa atm bar bar(a) bar(g) bara barg hPa inH2O inH2O(a) inH2O(abs) inH2O(vac) inHg inHg(a) inHg(abs) inHg(vac) kPa kPa(a) kPa(g) kPaa kPag kg/cm2 kg/cm2(a) kg/cm2(g) kg/cm2a kg/cm2g kgf/cm2 kgf/cm2(a) kgf/cm2(g) kgf/cm2a kgf/cm2g mbar mmHg mmHg(a) mmHg(abs) mmHg(vac) psi psi(a) psi(d) psi(g) psia psid psig"},

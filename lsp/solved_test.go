@@ -19,6 +19,7 @@ import (
 
 	"hmb/lang"
 	"hmb/lsp/cache"
+	"hmb/thermo/cases"
 	"hmb/thermo/model"
 	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
@@ -292,13 +293,16 @@ func TestDiagnosticsMatchCheck(t *testing.T) {
 }
 
 // checkDiags is hmb check's pipeline (cmd/hmb checkModel): the notation's findings, then the
-// solver's, sorted stably by position.
+// solver's, then each case's the base does not make, sorted stably by position.
 func checkDiags(name string, src []byte) []model.Diagnostic {
 	lr := lang.Check(name, src)
 	diags := slices.Clone(lr.Diags)
 	if lr.Model != nil {
 		res, _ := reconcile.Solve(context.Background(), lr.Model, solve.Options{})
 		diags = append(diags, res.Diags...)
+		for _, k := range cases.Solve(context.Background(), lr.Model, solve.Options{}) {
+			diags = append(diags, cases.Distinct(k.Diags, res.Diags)...)
+		}
 	}
 	slices.SortStableFunc(diags, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return diags

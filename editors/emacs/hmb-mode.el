@@ -103,10 +103,14 @@ Inside parentheses spaces belong to the spelling: kJ/(kg K).")
      (,(concat "\\=[ \t]*,?[ \t]*\\(" hmb--name "\\)") nil nil
       (1 font-lock-variable-name-face)))
     (,(concat hmb--entry-start (regexp-opt hmb--properties 'symbols)) 1 font-lock-builtin-face)
+    (,(concat hmb--entry-start "\\_<\\(case\\|sweep\\)\\_>[ \t]*\\(" hmb--name "\\)?")
+     (1 font-lock-keyword-face)
+     (2 font-lock-function-name-face nil t))
+    ("\\_<\\(?:free\\|from\\|to\\|step\\|count\\|show\\)\\_>" . font-lock-keyword-face)
     ("\\_<within\\_>\\|±\\|\\+/-\\|\\+-\\|[<>]=?\\|=" . font-lock-keyword-face)
-    (,(concat "\\(" hmb--number "\\)\\(?:[ \t]*\\(\\_<within\\_>\\|" hmb--unit "\\)\\)?")
+    (,(concat "\\(" hmb--number "\\)\\(?:[ \t]*\\(\\_<\\(?:within\\|to\\|step\\|count\\)\\_>\\|" hmb--unit "\\)\\)?")
      (1 'hmb-number-face)
-     (2 (unless (equal (match-string 2) "within") 'hmb-unit-face) nil t)))
+     (2 (unless (member (match-string 2) '("within" "to" "step" "count")) 'hmb-unit-face) nil t)))
   "Highlighting for `hmb-mode'.")
 
 (defvar hmb-mode-syntax-table

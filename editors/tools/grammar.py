@@ -30,7 +30,7 @@ ROLES = "|".join(WORDS["roles"])
 PROPS = "|".join(WORDS["properties"])
 SETTINGS = "|".join(WORDS["settings"])
 NUMBER = r"[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?"
-UNIT = r"(?!within" + E + r")(?:[^\s{},;#\"=<>±(]|\([^)\n]*\))+"
+UNIT = r"(?!(?:within|to|step|count)" + E + r")(?:[^\s{},;#\"=<>±(]|\([^)\n]*\))+"
 
 # Each rule: a single match with captures, or a begin/end region (name, begin, end, inner rules).
 RULES = [
@@ -48,6 +48,9 @@ RULES = [
     ("expect", dict(match=B + "(expect)" + E + r"(?:[ \t]+(" + NAME + r"))?(?:[ \t]+(" + NAME + r"))?",
                     captures={1: "keyword.other.expect.hmb", 2: "variable.other.hmb",
                               3: "support.type.property-name.hmb"})),
+    ("study", dict(comment='case NAME ["label"] { ... }, sweep NAME ["label"] { ... }; in a sweep: case NAME',
+                   match=KEY + "(case|sweep)" + E + r"(?:[ \t]+(" + NAME + r"))?",
+                   captures={1: "keyword.other.study.hmb", 2: "entity.name.section.case.hmb"})),
     ("unit", dict(comment='KIND NAME ["label"] { ... }',
                   match=KEY + "(" + KINDS + ")" + E + r"(?:[ \t]+(" + NAME + r"))?",
                   captures={1: "storage.type.unit.hmb", 2: "entity.name.function.unit.hmb"})),
@@ -63,6 +66,8 @@ RULES = [
                    captures={1: "support.type.property-name.hmb", 2: "constant.language.fluid.hmb"})),
     ("property", dict(match=KEY + "(" + PROPS + ")" + E, captures={1: "support.type.property-name.hmb"})),
     ("within", dict(match=B + "within" + E, name="keyword.operator.word.hmb")),
+    ("studyword", dict(comment="the words of cases and sweeps: FW T free; from 4 kg/s to 8 kg/s step 1 kg/s; show",
+                       match=B + "(?:free|from|to|step|count|show)" + E, name="keyword.other.study.hmb")),
     ("plusminus", dict(match=r"±|\+/-|\+-", name="keyword.operator.tolerance.hmb")),
     ("comparison", dict(match="<=|>=|=|<|>", name="keyword.operator.comparison.hmb")),
     ("quantity", dict(comment="a number and its unit spelling: 150 psig, 9000 lbm/h, 480 °F, 1.2 kJ/(kg K)",

@@ -17,6 +17,7 @@ import (
 	"hmb/lang/ast"
 	"hmb/lang/check"
 	"hmb/lang/source"
+	"hmb/thermo/cases"
 	"hmb/thermo/model"
 	"hmb/thermo/reconcile"
 	"hmb/thermo/solve"
@@ -60,6 +61,7 @@ type Snapshot struct {
 	solveOnce sync.Once
 	solveDone chan struct{}
 	solution  *solve.Result
+	cases     []*cases.Result // the file's cases, solved with the solution
 }
 
 func newSnapshot(uri protocol.DocumentURI, version int32, src []byte, solver SolveFunc, log io.Writer) *Snapshot {
@@ -154,7 +156,22 @@ func (s *Snapshot) solve() {
 	if sol == nil {
 		sol = &solve.Result{}
 	}
-	s.solution = sol
+	cs := cases.SolveWith(s.ctx, m, s.solver) // every case, as hmb check solves them
+	if s.ctx.Err() != nil {
+		return
+	}
+	s.solution, s.cases = sol, cs
+}
+
+// Cases returns the file's cases as solved with the solution, once Solution has returned one;
+// nil before, and for a file without cases.
+func (s *Snapshot) Cases() []*cases.Result {
+	select {
+	case <-s.solveDone:
+		return s.cases
+	default:
+		return nil
+	}
 }
 
 // internalError turns a panic in the check or the solve into a diagnostic at the top of the
@@ -173,13 +190,19 @@ func (s *Snapshot) internalError(stage string, r any) model.Diagnostic {
 }
 
 // Diagnostics is the full set for the snapshot: the check's and, when sol is not nil, the
-// solver's, in hmb check's order (by start, the check's first among equals).
+// solver's and, when sol is the snapshot's solution, those of its cases the base does not make
+// (each naming its case), in hmb check's order (by start, the check's first among equals).
 func (s *Snapshot) Diagnostics(sol *solve.Result) []model.Diagnostic {
 	res := s.Check()
 	out := make([]model.Diagnostic, 0, len(res.Diags))
 	out = append(out, res.Diags...)
 	if sol != nil {
 		out = append(out, sol.Diags...)
+		if sol == s.Solved() {
+			for _, k := range s.cases {
+				out = append(out, cases.Distinct(k.Diags, sol.Diags)...) // the base says what it shares
+			}
+		}
 	}
 	slices.SortStableFunc(out, func(a, b model.Diagnostic) int { return a.Span.Start - b.Span.Start })
 	return out

@@ -45,8 +45,8 @@ func Completion(snap *cache.Snapshot, off int) *protocol.CompletionList {
 			if site.Kinds&lang.SiteProp != 0 && k.Name != "fluid" {
 				continue // in a stream block only fluid is a keyword
 			}
-			if site.Kinds&lang.SiteProp == 0 && (k.Name == "fluid" || k.Name == "within") {
-				continue
+			if site.Kinds&lang.SiteProp == 0 && k.Inner {
+				continue // a word inside a statement starts none
 			}
 			add(k.Name, protocol.CompletionItemKindKeyword, k.Doc)
 		}

@@ -39,6 +39,9 @@ func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover,
 		} else {
 			text = StreamHover(res, sol, o)
 		}
+		if sol != nil {
+			text += CaseHover(res, sol, snap.Cases(), o)
+		}
 	} else if g := measuredAt(res, off); g != nil && !onSpelling(snap.Tokens(), off) {
 		// A reading: measured and reconciled. Its unit spelling keeps the spelling's hover.
 		sol, err := snap.Solution(ctx)
@@ -118,6 +121,8 @@ func tokenHover(src []byte, res *lang.Result, toks []lang.Token, t int) string {
 		}
 	case lang.SpellingToken:
 		return SpellingHover(src, res, toks, t)
+	case lang.CaseToken:
+		return caseNameHover(res, word)
 	}
 	return ""
 }

@@ -23,6 +23,7 @@ var TokenTypes = [lang.NumTokenKinds]protocol.SemanticTokenTypes{
 	lang.StringToken:   protocol.SemanticTokenString,
 	lang.CommentToken:  protocol.SemanticTokenComment,
 	lang.OperatorToken: protocol.SemanticTokenOperator,
+	lang.CaseToken:     protocol.SemanticTokenNamespace,
 }
 
 // TokenModifiers is the legend's modifiers: bit 0 marks a declaration.

@@ -1,10 +1,12 @@
 package feature
 
-// This file implements the document outline: streams and units in source order.
+// This file implements the document outline: streams and units in source order, then the cases
+// and sweeps.
 
 import (
 	"go.lsp.dev/protocol"
 
+	"hmb/lang/ast"
 	"hmb/lsp/cache"
 )
 
@@ -26,7 +28,23 @@ func Symbols(snap *cache.Snapshot) []protocol.DocumentSymbol {
 		}
 		out = append(out, ds)
 	}
+	// Cases and sweeps after them, as a reader looks for them.
+	for _, d := range res.Info.Cases {
+		out = append(out, studySymbol(snap, "case", d.Name, d.Label, d))
+	}
+	for _, d := range res.Info.Sweeps {
+		out = append(out, studySymbol(snap, "sweep", d.Name, d.Label, d))
+	}
 	return out
+}
+
+func studySymbol(snap *cache.Snapshot, kw string, name *ast.Ident, label *ast.String, decl ast.Node) protocol.DocumentSymbol {
+	detail := kw
+	if label != nil {
+		detail += " " + label.Value
+	}
+	return protocol.DocumentSymbol{Name: name.Name, Detail: detail, Kind: protocol.SymbolKindNamespace,
+		Range: snap.Mapper.Range(spanOf(decl)), SelectionRange: snap.Mapper.Range(spanOf(name))}
 }
 
 // unitDetail is a unit's kind and label: "turbine hp turbine".

@@ -30,9 +30,17 @@ type Result struct {
 // Prefix is what a case's diagnostics start with: "case low: ".
 func Prefix(name string) string { return "case " + name + ": " }
 
-// Solve solves every case of m that the notation found sound, in parallel, and returns them in
-// the model's order.
+// Solve solves every case of m that the notation found sound, in parallel, with the
+// reconciliation of measurements as hmb check runs it, and returns them in the model's order.
 func Solve(ctx context.Context, m *model.Model, opt solve.Options) []*Result {
+	return SolveWith(ctx, m, func(ctx context.Context, mm *model.Model) *solve.Result {
+		res, _ := reconcile.Solve(ctx, mm, opt)
+		return res
+	})
+}
+
+// SolveWith is Solve with the solver given (the language server's, which it may replace).
+func SolveWith(ctx context.Context, m *model.Model, solver func(context.Context, *model.Model) *solve.Result) []*Result {
 	out := make([]*Result, len(m.Cases))
 	var wg sync.WaitGroup
 	sem := make(chan struct{}, runtime.GOMAXPROCS(0))
@@ -46,7 +54,17 @@ func Solve(ctx context.Context, m *model.Model, opt solve.Options) []*Result {
 		go func(r *Result) {
 			defer wg.Done()
 			defer func() { <-sem }()
-			r.Res, r.Rec = reconcile.Solve(ctx, r.Model, opt)
+			defer func() {
+				if p := recover(); p != nil { // a bug must cost the case, not the process
+					r.Res, r.Rec = &solve.Result{}, nil
+					r.Diags = Mark([]model.Diagnostic{internal(r.Case.Span, p)}, r.Case.Name)
+				}
+			}()
+			r.Res = solver(ctx, r.Model)
+			if r.Res == nil {
+				r.Res = &solve.Result{}
+			}
+			r.Rec = reconcile.Of(r.Res)
 			r.Diags = Mark(r.Res.Diags, r.Case.Name)
 		}(out[i])
 	}
@@ -118,6 +136,11 @@ func Names(m *model.Model) string {
 		return "the file declares none"
 	}
 	return "cases: " + strings.Join(ns, ", ")
+}
+
+// internal reports a panic while solving as an error at sp.
+func internal(sp model.Span, p any) model.Diagnostic {
+	return errorf("internal", sp, "internal error in the solve (please report it): %v", p)
 }
 
 // errorf makes an error diagnostic.

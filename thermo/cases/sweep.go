@@ -34,6 +34,7 @@ type SweepResult struct {
 	// was not run (HMB802).
 	Diags []model.Diagnostic
 	Work  solve.Work // summed over the points
+	mu    sync.Mutex
 }
 
 // MaxValues bounds the results a sweep keeps (points times results): a sweep of every result of
@@ -85,6 +86,13 @@ func Sweep(ctx context.Context, m *model.Model, sw *model.Sweep, refs []model.Re
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			defer func() {
+				if p := recover(); p != nil { // a bug must cost the sweep, not the process
+					out.mu.Lock()
+					out.Diags = append(out.Diags, internal(sw.Span, p))
+					out.mu.Unlock()
+				}
+			}()
 			work[k] = out.solveRun(ctx, base, opt, measured, k*sw.N/runs, (k+1)*sw.N/runs)
 		}()
 	}

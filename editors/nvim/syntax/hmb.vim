@@ -13,6 +13,9 @@ syn match   hmbEscape    +\\.+ contained
 syn keyword hmbStatement stream nextgroup=hmbStreamDecl skipwhite
 syn match   hmbStreamDecl "\k\+\%(\s*,\s*\k\+\)*" contained contains=hmbComma
 syn keyword hmbStatement expect nextgroup=hmbTarget skipwhite
+syn keyword hmbStatement case sweep nextgroup=hmbCaseDecl skipwhite
+syn match   hmbCaseDecl  "\k\+" contained
+syn keyword hmbStudyWord free from to step count show
 syn match   hmbTarget    "\k\+" contained nextgroup=hmbProperty skipwhite
 syn keyword hmbSetting   title atmosphere elevation tolerance ambient project document revision prepared_by checked_by date display_flow display_vol_flow display_pressure display_temperature display_enthalpy display_entropy display_volume display_density display_power display_duty display_heat_rate
 syn keyword hmbSetting   display nextgroup=hmbSystem skipwhite
@@ -29,7 +32,7 @@ syn match   hmbComma     "," contained
 
 " A number and the unit spelling after it: 150 psig, 9000 lbm/h, 480 °F, 1.2 kJ/(kg K).
 syn match   hmbNumber    "\k\@1<!\.\@1<![-+]\=\%(\d\+\%(\.\d*\)\=\|\.\d\+\)\%([eE][-+]\=\d\+\)\=" nextgroup=hmbUnit skipwhite
-syn match   hmbUnit      "\%(within\>\)\@![^ \t{},;#\"=<>±()0-9.+-]\%([^ \t{},;#\"=<>±(]\|([^)]*)\)*" contained
+syn match   hmbUnit      "\%(\%(within\|to\|step\|count\)\>\)\@![^ \t{},;#\"=<>±()0-9.+-]\%([^ \t{},;#\"=<>±(]\|([^)]*)\)*" contained
 
 hi def link hmbComment    Comment
 hi def link hmbString     String
@@ -37,6 +40,8 @@ hi def link hmbEscape     SpecialChar
 hi def link hmbStatement  Statement
 hi def link hmbStreamDecl Identifier
 hi def link hmbTarget     Identifier
+hi def link hmbCaseDecl   Identifier
+hi def link hmbStudyWord  Keyword
 hi def link hmbSetting    PreProc
 hi def link hmbSystem     Constant
 hi def link hmbKind       Type
