@@ -35,6 +35,7 @@ type builder struct {
 	// unknowns of a blocked stream, they are not reported again as under-specified.
 	rejected map[int]bool
 	unames   []string
+	steps    int       // structure steps of the pressure-default matching, for Work
 	ints     []int     // arena of Equation.Vars (see intsOf)
 	lins     []linTerm // arena of Equation.lin
 }

@@ -11,6 +11,22 @@ import (
 // for augmenting paths, recursive, from each unmatched equation in turn, givens first): the
 // reference the faster search must reproduce exactly, equation for unknown.
 func plainMatching(sys *System) (matchEq, matchVar []int) {
+	g := newGraph(sys)
+	skip := g.loopRedundant(len(sys.Vars))
+	return plainClasses(sys, 2, func(e int) int {
+		switch {
+		case skip[e]:
+			return -1
+		case firstPass(sys.Eqs[e].Kind):
+			return 0
+		}
+		return 1
+	}, nil)
+}
+
+// plainClasses is the plain search class by class (class -1: left out), over the unknowns keep
+// accepts (all when nil), as pressureDefaults first wrote it.
+func plainClasses(sys *System, n int, class func(e int) int, keep func(v int) bool) (matchEq, matchVar []int) {
 	matchEq, matchVar = make([]int, len(sys.Eqs)), make([]int, len(sys.Vars))
 	for i := range matchEq {
 		matchEq[i] = -1
@@ -18,14 +34,13 @@ func plainMatching(sys *System) (matchEq, matchVar []int) {
 	for i := range matchVar {
 		matchVar[i] = -1
 	}
-	g := newGraph(sys)
-	skip := g.loopRedundant(len(sys.Vars))
+	ok := func(v int) bool { return keep == nil || keep(v) }
 	seen := make([]int, len(sys.Vars))
 	stamp := 0
 	var try func(e int) bool
 	try = func(e int) bool {
 		for _, v := range sys.Eqs[e].Vars {
-			if seen[v] == stamp {
+			if !ok(v) || seen[v] == stamp {
 				continue
 			}
 			seen[v] = stamp
@@ -36,26 +51,51 @@ func plainMatching(sys *System) (matchEq, matchVar []int) {
 		}
 		return false
 	}
-	for _, givens := range []bool{true, false} {
+	for c := range n {
 		for e := range sys.Eqs {
-			if (sys.Eqs[e].Kind == EqGiven) != givens || skip[e] {
+			if class(e) != c {
 				continue
 			}
 			for _, v := range sys.Eqs[e].Vars {
-				if matchVar[v] < 0 {
+				if ok(v) && matchVar[v] < 0 {
 					matchVar[v], matchEq[e] = e, v
 					break
 				}
 			}
 		}
 		for e := range sys.Eqs {
-			if matchEq[e] < 0 && (sys.Eqs[e].Kind == EqGiven) == givens && !skip[e] {
+			if matchEq[e] < 0 && class(e) == c {
 				stamp++
 				try(e)
 			}
 		}
 	}
 	return matchEq, matchVar
+}
+
+// TestMatchClassesAsPlainSearch: with three classes and a subset of the unknowns (the matching
+// that decides the pressure-drop defaults), the matching is the plain search's too.
+func TestMatchClassesAsPlainSearch(t *testing.T) {
+	r := rand.New(rand.NewPCG(11, 12))
+	for trial := range 3000 {
+		nv := 1 + r.IntN(40)
+		sys := randomSystem(r, 1+r.IntN(2*nv), nv)
+		classes := make([]int, len(sys.Eqs))
+		for e := range classes {
+			classes[e] = r.IntN(4) - 1
+		}
+		keep := func(v int) bool { return v%3 != 1 }
+		class := func(e int) int { return classes[e] }
+		wantEq, _ := plainClasses(sys, 3, class, keep)
+		st := newStructure(context.Background(), newGraphOf(sys, keep), len(sys.Eqs), nv)
+		if err := st.matchClasses(3, class); err != nil {
+			t.Fatal(err)
+		}
+		checkMatching(t, sys, st)
+		if !slices.Equal(wantEq, st.matchEq) {
+			t.Fatalf("trial %d: %v, the plain search gives %v", trial, st.matchEq, wantEq)
+		}
+	}
 }
 
 // randomSystem is a structure only (no equations to evaluate): ne equations over nv unknowns,

@@ -1,6 +1,8 @@
 package solve
 
 import (
+	"context"
+
 	"hmb/thermo/model"
 	"hmb/thermo/units"
 )
@@ -34,12 +36,8 @@ func (b *builder) pressureDefaults() {
 		}
 		return -1
 	}
-	var eqs []int
 	nDefault := 0
 	for e := range sys.Eqs {
-		if pass(&sys.Eqs[e]) >= 0 {
-			eqs = append(eqs, e)
-		}
 		if sys.Eqs[e].Kind == EqDefault {
 			nDefault++
 		}
@@ -47,50 +45,14 @@ func (b *builder) pressureDefaults() {
 	if nDefault == 0 {
 		return
 	}
-	matchVar := make([]int, len(sys.Vars))
-	for i := range matchVar {
-		matchVar[i] = -1
-	}
-	matched := make(map[int]bool, len(eqs))
-	seen := make([]int, len(sys.Vars))
-	stamp := 0
-	var try func(e int) bool
-	try = func(e int) bool {
-		for _, v := range sys.Eqs[e].Vars {
-			if !isPressureVar(v) || seen[v] == stamp {
-				continue
-			}
-			seen[v] = stamp
-			if matchVar[v] < 0 || try(matchVar[v]) {
-				matchVar[v] = e
-				matched[e] = true
-				return true
-			}
-		}
-		return false
-	}
-	for p := range 3 {
-		for _, e := range eqs { // a free unknown at hand first: chains match without searching
-			if pass(&sys.Eqs[e]) != p {
-				continue
-			}
-			for _, v := range sys.Eqs[e].Vars {
-				if isPressureVar(v) && matchVar[v] < 0 {
-					matchVar[v], matched[e] = e, true
-					break
-				}
-			}
-		}
-		for _, e := range eqs {
-			if pass(&sys.Eqs[e]) == p && !matched[e] {
-				stamp++
-				try(e)
-			}
-		}
-	}
+	// The matching of analyse (matchClasses), on the pressure unknowns alone.
+	st := newStructure(context.Background(), newGraphOf(sys, isPressureVar), len(sys.Eqs), len(sys.Vars))
+	st.matchClasses(3, func(e int) int { return pass(&sys.Eqs[e]) })
+	b.steps += st.steps
+	matched := func(e int) bool { return st.matchEq[e] >= 0 }
 	kept := sys.Eqs[:0]
 	for e := range sys.Eqs {
-		if sys.Eqs[e].Kind == EqDefault && !matched[e] {
+		if sys.Eqs[e].Kind == EqDefault && !matched(e) {
 			continue
 		}
 		kept = append(kept, sys.Eqs[e])

@@ -249,7 +249,7 @@ func (s *solveRun) run() {
 	diags := append(s.b.diags, s.diags...)
 	sort.SliceStable(diags, func(i, j int) bool { return diags[i].Span.Start < diags[j].Span.Start })
 	s.res.Diags = diags
-	s.res.Work = Work{Structure: s.st.steps, Evals: s.evals}
+	s.res.Work = Work{Structure: s.b.steps + s.st.steps, Evals: s.evals}
 }
 
 // diags collected after building go through solveRun.

@@ -26,18 +26,25 @@ type graph struct {
 func (g *graph) vars(e int) []int32 { return g.eqVar[g.eqStart[e]:g.eqStart[e+1]] }
 func (g *graph) eqs(v int) []int32  { return g.varEq[g.varStart[v]:g.varStart[v+1]] }
 
-func newGraph(sys *System) graph {
+func newGraph(sys *System) graph { return newGraphOf(sys, nil) }
+
+// newGraphOf is the graph of sys restricted to the unknowns keep accepts (all when nil): an
+// equation's row lists its kept unknowns in the order of its Vars.
+func newGraphOf(sys *System, keep func(v int) bool) graph {
 	nv, ne := len(sys.Vars), len(sys.Eqs)
 	g := graph{eqStart: make([]int32, ne+1), varStart: make([]int32, nv+1), given: make([]bool, ne), mass: make([]bool, ne)}
 	n := 0
 	for e := range sys.Eqs {
 		n += len(sys.Eqs[e].Vars)
 	}
-	g.eqVar, g.varEq = make([]int32, 0, n), make([]int32, n)
+	g.eqVar = make([]int32, 0, n)
 	for e := range sys.Eqs {
 		eq := &sys.Eqs[e]
 		g.given[e], g.mass[e] = firstPass(eq.Kind), eq.Kind == EqMass
 		for _, v := range eq.Vars {
+			if keep != nil && !keep(v) {
+				continue
+			}
 			g.eqVar = append(g.eqVar, int32(v))
 			g.varStart[v+1]++
 		}
@@ -46,6 +53,7 @@ func newGraph(sys *System) graph {
 	for v := range nv {
 		g.varStart[v+1] += g.varStart[v]
 	}
+	g.varEq = make([]int32, len(g.eqVar))
 	fill := make([]int32, nv)
 	copy(fill, g.varStart)
 	for e := range ne {
@@ -57,16 +65,9 @@ func newGraph(sys *System) graph {
 	return g
 }
 
-// checkEvery is how many steps the analysis takes between looks at the time limit.
-const checkEvery = 1 << 14
-
-// analyse matches equations to unknowns, givens before unit equations so that a redundant
-// balance rather than a given is left over (see matcher), then orders the matched equations into
-// blocks (Tarjan 1972, strongly connected components of "equation e needs the unknown that
-// equation f determines"). It returns ctx's error when the time limit cuts the analysis short.
-func analyse(ctx context.Context, sys *System) (*structure, error) {
-	nv, ne := len(sys.Vars), len(sys.Eqs)
-	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), graph: newGraph(sys), ctx: ctx}
+// newStructure is an empty matching over g.
+func newStructure(ctx context.Context, g graph, ne, nv int) *structure {
+	st := &structure{matchEq: make([]int, ne), matchVar: make([]int, nv), graph: g, ctx: ctx}
 	for i := range st.matchEq {
 		st.matchEq[i] = -1
 	}
@@ -74,13 +75,21 @@ func analyse(ctx context.Context, sys *System) (*structure, error) {
 		st.matchVar[i] = -1
 	}
 	st.steps += 2 * len(st.eqVar)
-	skip := st.loopRedundant(nv)
+	return st
+}
+
+// matchClasses matches the equations class by class, class(e) from 0 to n-1 (-1: left out):
+// within a class, a cheap pass (an equation takes the first free unknown it lists, which fixes
+// nearly everything in a flowsheet) and then the augmenting searches of matcher, in equation
+// order. Augmenting never unmatches an equation, so a class keeps every equation it matched.
+func (st *structure) matchClasses(n int, class func(e int) int) error {
+	ne, nv := len(st.matchEq), len(st.matchVar)
 	m := newMatcher(st, ne, nv)
 	var free []int
-	for _, givens := range []bool{true, false} {
+	for c := range n {
 		free = free[:0]
-		for e := range ne { // cheap pass: a free unknown at hand
-			if st.given[e] != givens || skip[e] {
+		for e := range ne {
+			if class(e) != c {
 				continue
 			}
 			for _, v := range st.vars(e) {
@@ -95,8 +104,34 @@ func analyse(ctx context.Context, sys *System) (*structure, error) {
 			}
 		}
 		if err := m.match(free); err != nil {
-			return st, err
+			return err
 		}
+	}
+	return nil
+}
+
+// checkEvery is how many steps the analysis takes between looks at the time limit.
+const checkEvery = 1 << 14
+
+// analyse matches equations to unknowns, givens before unit equations so that a redundant
+// balance rather than a given is left over (see matcher), then orders the matched equations into
+// blocks (Tarjan 1972, strongly connected components of "equation e needs the unknown that
+// equation f determines"). It returns ctx's error when the time limit cuts the analysis short.
+func analyse(ctx context.Context, sys *System) (*structure, error) {
+	nv, ne := len(sys.Vars), len(sys.Eqs)
+	st := newStructure(ctx, newGraph(sys), ne, nv)
+	skip := st.loopRedundant(nv)
+	class := func(e int) int {
+		switch {
+		case skip[e]:
+			return -1
+		case st.given[e]:
+			return 0
+		}
+		return 1
+	}
+	if err := st.matchClasses(2, class); err != nil {
+		return st, err
 	}
 	st.blocks = st.order()
 	if err := ctx.Err(); err != nil {
