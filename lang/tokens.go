@@ -4,6 +4,7 @@ import (
 	"slices"
 
 	"hmb/lang/ast"
+	"hmb/thermo/model"
 )
 
 // TokenKind is the role of a token, as highlighting and hover see it.
@@ -203,7 +204,11 @@ func (t *tokenizer) stmt(s ast.Stmt) {
 
 func (t *tokenizer) expect(s *ast.Expect) {
 	t.add(s.Keyword, s.Keyword+len("expect"), KeywordToken, false)
-	t.name(s.Target)
+	if IsTotal(t.r, s.Target) {
+		t.ident(s.Target, KeywordToken, false) // the whole file, not a name
+	} else {
+		t.name(s.Target)
+	}
 	t.ident(s.Prop, PropToken, false)
 	t.add(s.OpPos, s.OpPos+len(s.Op), OperatorToken, false)
 	t.qty(s.Value)
@@ -254,4 +259,13 @@ func (t *tokenizer) sweepEntry(e ast.Entry) {
 			t.ident(n, CaseToken, false)
 		}
 	}
+}
+
+// IsTotal reports whether an expectation's target names the whole file's totals: the word
+// total, when no stream or unit of the file is named so.
+func IsTotal(r *Result, target *ast.Ident) bool {
+	if target == nil || target.Name != model.TotalName {
+		return false
+	}
+	return r.Info == nil || r.Info.Objects[model.TotalName] == nil
 }

@@ -62,6 +62,14 @@ func Hover(ctx context.Context, snap *cache.Snapshot, off int) (*protocol.Hover,
 				span, text = sp, tables
 			}
 		}
+		if text == "" && isTotalAt(res, toks[t].Pos) {
+			// An expectation's subject total: the file's totals.
+			sol, err := snap.Solution(ctx)
+			if err != nil && ctx.Err() != nil {
+				return nil, err
+			}
+			text = TotalsHover(res, sol)
+		}
 		if text == "" {
 			text = tokenHover(snap.Src(), res, toks, t)
 		}
@@ -113,6 +121,14 @@ func tokenHover(src []byte, res *lang.Result, toks []lang.Token, t int) string {
 			}
 			if r := o.Kind.Result(word); r != nil {
 				return fmt.Sprintf("`%s` (%s result of a %s): %s", word, r.Dim, o.Kind.Name, r.Doc)
+			}
+			return ""
+		}
+		if t > 0 && isTotalAt(res, toks[t-1].Pos) {
+			for _, r := range model.TotalResults {
+				if r.Name == word {
+					return fmt.Sprintf("`%s` (%s total of the file): %s", word, r.Dim, r.Doc)
+				}
 			}
 			return ""
 		}

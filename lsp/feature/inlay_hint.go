@@ -21,8 +21,9 @@ import (
 // where a state lies. The rest stays in the hover.
 var streamHinted = []string{"T", "x"}
 
-// unitHinted are the unit results a hint may show, where the unit's kind has them.
-var unitHinted = []string{"duty", "power"}
+// unitHinted are the unit results a hint may show, where the unit's kind has them: an
+// exchanger's closest approach says at a glance whether its duty is buildable.
+var unitHinted = []string{"duty", "power", "dT_min"}
 
 // InlayHints returns the hints for declarations that end inside span. It waits (under ctx) for
 // the solution; a superseded snapshot gets none.
